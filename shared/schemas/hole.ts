@@ -1,0 +1,90 @@
+import { z } from 'zod';
+import { DEPTH_REFERENCES, EXCAVATION_METHODS, POSITION_SOURCES, SIDES } from '../domain';
+import { finite, isoDate, length, optionalText, positiveLength, requiredText } from './common';
+
+/**
+ * Fields a crew logs on a test hole. The position is either grid E/N, or station + offset
+ * on a bore (converted to grid by the server), or a phone GPS fix already converted to grid.
+ */
+const holeFields = z.strictObject({
+  number: requiredText(40),
+  lineId: z.number().int().positive(),
+  positionSource: z.enum(POSITION_SOURCES),
+  easting: finite.nullish(),
+  northing: finite.nullish(),
+  boreId: z.number().int().positive().nullish(),
+  station: finite.nullish(),
+  offset: length.nullish(),
+  offsetSide: z.enum(SIDES).nullish(),
+  gpsAccuracy: positiveLength.nullish(),
+  groundElevation: finite.nullish(),
+  depthToTop: length.nullish(),
+  depthReference: z.enum(DEPTH_REFERENCES).default('top'),
+  measuredSize: positiveLength.nullish(),
+  boxWidth: positiveLength.nullish(),
+  boxHeight: positiveLength.nullish(),
+  depthToBottom: length.nullish(),
+  material: optionalText(80),
+  condition: optionalText(200),
+  direction: optionalText(80),
+  method: z.enum(EXCAVATION_METHODS).nullish(),
+  ticketNumber: optionalText(40),
+  surfaceType: optionalText(80),
+  markerSet: z.boolean().nullish(),
+  crew: optionalText(120),
+  dugAt: isoDate.nullish(),
+  notes: optionalText(4000),
+});
+
+function positionCheck(
+  v: Partial<z.infer<typeof holeFields>>,
+  ctx: z.RefinementCtx,
+) {
+  if (v.positionSource === 'station') {
+    if (v.boreId == null) ctx.addIssue({ code: 'custom', path: ['boreId'], message: 'choose the bore the station is on' });
+    if (v.station == null) ctx.addIssue({ code: 'custom', path: ['station'], message: 'is required for a station/offset position' });
+    if (v.offset == null) ctx.addIssue({ code: 'custom', path: ['offset'], message: 'is required for a station/offset position' });
+    if (v.offset != null && v.offset > 0 && v.offsetSide == null) {
+      ctx.addIssue({ code: 'custom', path: ['offsetSide'], message: 'say which side, L or R' });
+    }
+  } else if (v.positionSource !== undefined) {
+    if (v.easting == null) ctx.addIssue({ code: 'custom', path: ['easting'], message: 'is required' });
+    if (v.northing == null) ctx.addIssue({ code: 'custom', path: ['northing'], message: 'is required' });
+  }
+  if (v.positionSource === 'gps' && v.gpsAccuracy == null) {
+    ctx.addIssue({ code: 'custom', path: ['gpsAccuracy'], message: 'a GPS position needs its accuracy' });
+  }
+}
+
+export const holeCreateSchema = holeFields
+  .extend({
+    /** Client-made id: a retried create returns the record it already made. */
+    clientId: z.uuid(),
+  })
+  .strict()
+  .superRefine(positionCheck);
+export type HoleCreateInput = z.infer<typeof holeCreateSchema>;
+
+export const holeUpdateSchema = holeFields
+  .partial()
+  .extend({ version: z.number().int().positive() })
+  .strict()
+  .superRefine(positionCheck);
+export type HoleUpdateInput = z.infer<typeof holeUpdateSchema>;
+
+/** The surveyor's as-surveyed values; these win over ground − depth. */
+export const holeSurveySchema = z.strictObject({
+  surveyedEasting: finite.nullish(),
+  surveyedNorthing: finite.nullish(),
+  surveyedTopElevation: finite.nullish(),
+  surveyedGroundElevation: finite.nullish(),
+  version: z.number().int().positive(),
+});
+export type HoleSurveyInput = z.infer<typeof holeSurveySchema>;
+
+export const holeReviewSchema = z.discriminatedUnion('decision', [
+  z.strictObject({ decision: z.literal('accept'), version: z.number().int().positive() }),
+  z.strictObject({ decision: z.literal('send_back'), reason: requiredText(500), version: z.number().int().positive() }),
+  z.strictObject({ decision: z.literal('reopen'), reason: requiredText(500), version: z.number().int().positive() }),
+]);
+export type HoleReviewInput = z.infer<typeof holeReviewSchema>;
