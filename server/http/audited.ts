@@ -1,0 +1,71 @@
+import type { EntityManager } from '@mikro-orm/sqlite';
+import { staleVersion } from '../errors';
+import { logActivity } from '../modules/activity/activity.service';
+import type { Project } from '../modules/projects/project.entity';
+import type { User } from '../modules/users/user.entity';
+
+interface Audit {
+  em: EntityManager;
+  project: Project | null;
+  user: User;
+  /** Name of the entity in the activity log, e.g. `line`. */
+  entity: string;
+  /** Called inside the transaction after the write, for follow-up work such as recomputation. */
+  after?: (em: EntityManager) => Promise<void> | void;
+}
+
+/**
+ * Create a record and its activity entry in one transaction.
+ * `build` makes the entity (and may throw a validation error before anything is written).
+ */
+export async function createAudited<E extends { id: number }, D extends object>(
+  audit: Audit,
+  build: (em: EntityManager) => Promise<E> | E,
+  present: (e: E) => D,
+): Promise<D> {
+  return audit.em.transactional(async (em) => {
+    const entity = await build(em);
+    await em.persistAndFlush(entity);
+    logActivity(em, { project: audit.project, user: audit.user, entity: audit.entity, entityId: entity.id, action: 'create', before: null, after: present(entity) });
+    await audit.after?.(em);
+    await em.flush();
+    return present(entity);
+  });
+}
+
+/**
+ * Update a record after checking the caller's version, logging before and after values.
+ * A stale version answers 409 with the record as it stands.
+ */
+export async function updateAudited<E extends { id: number; version: number }, D extends object>(
+  audit: Audit,
+  entity: E,
+  version: number,
+  apply: (e: E, em: EntityManager) => Promise<void> | void,
+  present: (e: E) => D,
+  action = 'update',
+): Promise<D> {
+  if (version !== entity.version) throw staleVersion(present(entity));
+  const before = present(entity);
+  return audit.em.transactional(async (em) => {
+    const managed = em.merge(entity);
+    await apply(managed, em);
+    logActivity(em, { project: audit.project, user: audit.user, entity: audit.entity, entityId: managed.id, action, before, after: present(managed) });
+    await em.flush();
+    await audit.after?.(em);
+    await em.flush();
+    return present(managed);
+  });
+}
+
+/** Delete a record, logging what it held. */
+export async function deleteAudited<E extends { id: number }, D extends object>(audit: Audit, entity: E, present: (e: E) => D): Promise<void> {
+  const before = present(entity);
+  await audit.em.transactional(async (em) => {
+    logActivity(em, { project: audit.project, user: audit.user, entity: audit.entity, entityId: entity.id, action: 'delete', before, after: null });
+    em.remove(em.merge(entity));
+    await em.flush();
+    await audit.after?.(em);
+    await em.flush();
+  });
+}

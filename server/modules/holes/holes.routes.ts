@@ -1,0 +1,181 @@
+import type { EntityManager } from '@mikro-orm/sqlite';
+import type { HoleDto, PhotoDto } from '@shared/api';
+import { holeCreateSchema, holeReviewSchema, holeSurveySchema, holeUpdateSchema } from '@shared/schemas/hole';
+import type { AppConfig } from '../../config';
+import { AppError, badRequest, conflict, notFound } from '../../errors';
+import { createAudited, deleteAudited, updateAudited } from '../../http/audited';
+import { ApiRouter, idOf, type RouteMeta } from '../../http/api-router';
+import type { FileStorage } from '../../storage/storage';
+import { UtilityLine } from '../lines/utility-line.entity';
+import type { Project } from '../projects/project.entity';
+import { User } from '../users/user.entity';
+import { presentHole, presentPhoto } from './hole.presenter';
+import { assertCanEdit, resolvePosition, statusAfterLogging } from './holes.service';
+import { Photo } from './photo.entity';
+import { TestHole } from './test-hole.entity';
+
+async function photoCounts(em: EntityManager, holeIds: number[]): Promise<Map<number, number>> {
+  const counts = new Map<number, number>();
+  if (holeIds.length === 0) return counts;
+  const placeholders = holeIds.map(() => '?').join(',');
+  const rows = await em
+    .getConnection()
+    .execute<{ hole_id: number; n: number }[]>(`select hole_id, count(*) as n from photos where hole_id in (${placeholders}) group by hole_id`, holeIds);
+  for (const row of rows) counts.set(Number(row.hole_id), Number(row.n));
+  return counts;
+}
+
+async function findHole(em: EntityManager, project: Project, params: Record<string, string>): Promise<TestHole> {
+  const hole = await em.findOne(TestHole, { id: idOf(params, 'holeId', 'Test hole'), project }, { populate: ['line', 'bore', 'createdBy'] });
+  if (!hole) throw notFound('Test hole');
+  return hole;
+}
+
+async function findLine(em: EntityManager, project: Project, lineId: number): Promise<UtilityLine> {
+  const line = await em.findOne(UtilityLine, { id: lineId, project });
+  if (!line) throw badRequest('The line is not in this project.', [{ path: 'lineId', message: 'no such line in this project' }]);
+  return line;
+}
+
+/** Test holes: the crew's log, the surveyor's tie-in and the designer's review. */
+export function holeRoutes(registry: RouteMeta[], config: AppConfig, storage: FileStorage): ApiRouter {
+  const api = new ApiRouter('/api/projects/:projectId', registry, config);
+
+  api.get('/holes', { access: 'project.read' }, async ({ em, project }): Promise<HoleDto[]> => {
+    const holes = await em.find(TestHole, { project }, { orderBy: { number: 'asc', id: 'asc' } });
+    const counts = await photoCounts(em, holes.map((h) => h.id));
+    return holes.map((h) => presentHole(h, counts.get(h.id) ?? 0));
+  });
+
+  api.post('/holes', { access: 'hole.create', body: holeCreateSchema }, async ({ em, project, user, body, status }) => {
+    // A retried create (same client-made id) answers with the record already made.
+    const existing = await em.findOne(TestHole, { clientId: body.clientId }, { populate: ['project'] });
+    if (existing) {
+      if (existing.project.id !== project.id) throw conflict('This client id is already used by another record.');
+      return presentHole(existing, (await photoCounts(em, [existing.id])).get(existing.id) ?? 0);
+    }
+    const line = await findLine(em, project, body.lineId);
+    const position = await resolvePosition(em, project, body);
+    const { clientId, lineId: _lineId, boreId: _boreId, dugAt, ...fields } = body;
+    const dto = await createAudited(
+      { em, project, user, entity: 'hole' },
+      () => {
+        const hole = new TestHole(project, line, clientId, body.number, position.easting, position.northing);
+        Object.assign(hole, fields, position, { dugAt: dugAt ? new Date(dugAt) : null, createdBy: em.getReference(User, user.id) });
+        hole.status = statusAfterLogging(hole, body);
+        return hole;
+      },
+      (h) => presentHole(h),
+    );
+    status(201);
+    return dto;
+  });
+
+  api.get('/holes/:holeId', { access: 'project.read' }, async ({ em, project, params }) => {
+    const hole = await findHole(em, project, params);
+    return presentHole(hole, (await photoCounts(em, [hole.id])).get(hole.id) ?? 0);
+  });
+
+  api.patch('/holes/:holeId', { access: 'hole.update', body: holeUpdateSchema }, async ({ em, project, user, params, body }) => {
+    const hole = await findHole(em, project, params);
+    assertCanEdit(user, hole);
+    const { version, lineId, boreId: _boreId, dugAt, ...fields } = body;
+    const line = lineId !== undefined ? await findLine(em, project, lineId) : null;
+    const positional = (['easting', 'northing', 'boreId', 'station', 'offset', 'offsetSide', 'gpsAccuracy'] as const).filter((k) => body[k] !== undefined);
+    if (body.positionSource === undefined && positional.length > 0) {
+      throw badRequest('Say where the new position comes from.', [{ path: 'positionSource', message: `is required when changing ${positional.join(', ')}` }]);
+    }
+    const position = body.positionSource !== undefined ? await resolvePosition(em, project, { ...body, positionSource: body.positionSource }) : null;
+    const photos = (await photoCounts(em, [hole.id])).get(hole.id) ?? 0;
+    return updateAudited(
+      { em, project, user, entity: 'hole' },
+      hole,
+      version,
+      (h) => {
+        Object.assign(h, fields);
+        if (position) Object.assign(h, position);
+        if (line) h.line = line;
+        if (dugAt !== undefined) h.dugAt = dugAt ? new Date(dugAt) : null;
+        h.status = statusAfterLogging(h, body);
+      },
+      (h) => presentHole(h, photos),
+    );
+  });
+
+  api.delete('/holes/:holeId', { access: 'hole.delete' }, async ({ em, project, user, params }) => {
+    const hole = await findHole(em, project, params);
+    assertCanEdit(user, hole);
+    const keys = (await em.find(Photo, { hole })).flatMap((p) => [p.fileKey, p.thumbnailKey]);
+    await deleteAudited({ em, project, user, entity: 'hole' }, hole, (h) => presentHole(h));
+    await Promise.all(keys.map((k) => storage.delete(k)));
+  });
+
+  api.put('/holes/:holeId/survey', { access: 'hole.survey', body: holeSurveySchema }, async ({ em, project, user, params, body }) => {
+    const hole = await findHole(em, project, params);
+    if (hole.status === 'reviewed') throw new AppError(409, 'locked', `Test hole ${hole.number} is reviewed and locked.`);
+    const { version, ...fields } = body;
+    const photos = (await photoCounts(em, [hole.id])).get(hole.id) ?? 0;
+    return updateAudited(
+      { em, project, user, entity: 'hole' },
+      hole,
+      version,
+      (h) => {
+        Object.assign(h, fields);
+        const surveyed = h.surveyedTopElevation != null && h.surveyedEasting != null && h.surveyedNorthing != null;
+        if (surveyed && (h.status === 'dug' || h.status === 'planned')) h.status = 'surveyed';
+      },
+      (h) => presentHole(h, photos),
+      'survey',
+    );
+  });
+
+  api.post('/holes/:holeId/review', { access: 'hole.review', body: holeReviewSchema }, async ({ em, project, user, params, body }) => {
+    const hole = await findHole(em, project, params);
+    const photos = (await photoCounts(em, [hole.id])).get(hole.id) ?? 0;
+    if (body.decision === 'accept' && hole.status !== 'surveyed' && hole.status !== 'dug') {
+      throw new AppError(409, 'wrong_state', `Only a dug or surveyed hole can be accepted; ${hole.number} is ${hole.status}.`);
+    }
+    if (body.decision === 'send_back' && hole.status === 'planned') {
+      throw new AppError(409, 'wrong_state', `Test hole ${hole.number} has not been dug yet.`);
+    }
+    if (body.decision === 'reopen' && hole.status !== 'reviewed') {
+      throw new AppError(409, 'wrong_state', `Only a reviewed hole can be reopened; ${hole.number} is ${hole.status}.`);
+    }
+    return updateAudited(
+      { em, project, user, entity: 'hole' },
+      hole,
+      body.version,
+      (h) => {
+        if (body.decision === 'accept') {
+          h.status = 'reviewed';
+          h.reviewNote = null;
+        } else if (body.decision === 'send_back') {
+          h.status = 'dug';
+          h.reviewNote = body.reason;
+        } else {
+          h.status = h.surveyedTopElevation != null ? 'surveyed' : 'dug';
+          h.reviewNote = body.reason;
+        }
+      },
+      (h) => presentHole(h, photos),
+      body.decision,
+    );
+  });
+
+  api.get('/holes/:holeId/photos', { access: 'project.read' }, async ({ em, project, params }): Promise<PhotoDto[]> => {
+    const hole = await findHole(em, project, params);
+    return (await em.find(Photo, { hole }, { orderBy: { id: 'asc' } })).map((p) => presentPhoto(p, project.id));
+  });
+
+  for (const variant of ['file', 'thumbnail'] as const) {
+    api.get(`/photos/:photoId/${variant}`, { access: 'project.read' }, async ({ em, project, params, res }) => {
+      const photo = await em.findOne(Photo, { id: idOf(params, 'photoId', 'Photo'), hole: { project } });
+      if (!photo) throw notFound('Photo');
+      const data = await storage.get(variant === 'file' ? photo.fileKey : photo.thumbnailKey);
+      if (!data) throw notFound('Photo file');
+      res.set('Cache-Control', 'private, max-age=86400, immutable').type(variant === 'file' ? photo.mimeType : 'image/jpeg').send(data);
+    });
+  }
+
+  return api;
+}
