@@ -1,6 +1,6 @@
 import type { UserDto } from '@shared/api';
 import { userCreateSchema, userUpdateSchema } from '@shared/schemas/auth';
-import { conflict, notFound, staleVersion } from '../../errors';
+import { AppError, conflict, notFound, staleVersion } from '../../errors';
 import { ApiRouter, idOf, type RouteMeta } from '../../http/api-router';
 import type { AppConfig } from '../../config';
 import { logActivity } from '../activity/activity.service';
@@ -18,7 +18,9 @@ export function userRoutes(registry: RouteMeta[], config: AppConfig): ApiRouter 
   });
 
   api.post('/', { access: 'user.manage', body: userCreateSchema }, async ({ em, body, user, status }): Promise<UserDto> => {
-    if ((await em.count(User, { email: body.email })) > 0) throw conflict(`A user with e-mail ${body.email} already exists.`);
+    if ((await em.count(User, { email: body.email })) > 0) {
+      throw new AppError(409, 'duplicate', `A user with e-mail ${body.email} already exists.`, { errors: [{ path: 'email', message: 'is already used by another user' }] });
+    }
     const hash = await hashPassword(body.password);
     const dto = await em.transactional(async (tem) => {
       const created = new User(body.email, body.name, body.role, hash);

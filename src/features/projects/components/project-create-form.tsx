@@ -1,0 +1,97 @@
+import { LINEAR_UNITS, STATION_STYLES, UNIT_LABELS } from '@shared/domain';
+import type { ProjectDto } from '@shared/api';
+import { projectCreateSchema } from '@shared/schemas/project';
+import { Alert, ProblemAlert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { SelectField, TextAreaField, TextField } from '@/components/ui/field';
+import { applyServerErrors, asTextOrNull, useZodForm } from '@/lib/form';
+import { useCreateProject } from '../api/create-project';
+import { crsUnitWarning } from './crs-unit-check';
+import { STATION_STYLE_LABELS } from './station-style';
+
+const FIELDS = ['name', 'client', 'description', 'crsCode', 'crsProj4', 'unit', 'verticalDatum', 'stationStyle'] as const;
+
+/** The "New project" form: identity, horizontal CRS, unit, vertical datum and station style. */
+export function ProjectCreateForm({ onCreated, onCancel }: { onCreated: (project: ProjectDto) => void; onCancel: () => void }) {
+  const create = useCreateProject();
+  const {
+    register,
+    handleSubmit,
+    setError,
+    watch,
+    formState: { errors },
+  } = useZodForm(projectCreateSchema, {
+    defaultValues: { name: '', client: '', description: null, crsCode: 'EPSG:', crsProj4: '', unit: 'usft', verticalDatum: '', stationStyle: '100' },
+  });
+  const warning = crsUnitWarning(watch('crsProj4'), watch('unit'));
+
+  const onSubmit = handleSubmit((values) =>
+    create.mutate(values, {
+      onSuccess: onCreated,
+      onError: (error) => applyServerErrors(error, setError, FIELDS),
+    }),
+  );
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="New project">
+      {create.error && <ProblemAlert error={create.error} fields={FIELDS} />}
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField label="Project name" required error={errors.name} {...register('name')} />
+        <TextField label="Client" required error={errors.client} {...register('client')} />
+      </div>
+      <TextAreaField label="Description" error={errors.description} {...register('description', { setValueAs: asTextOrNull })} />
+
+      <fieldset className="space-y-4 rounded-md border border-ink-200 p-4">
+        <legend className="px-1 text-sm font-semibold text-ink-800">Coordinates and heights</legend>
+        <div className="grid gap-4 sm:grid-cols-2">
+          <TextField
+            label="CRS code"
+            required
+            autoCapitalize="characters"
+            spellCheck={false}
+            hint="EPSG:<number> of the projected grid your survey uses, or CUSTOM."
+            error={errors.crsCode}
+            {...register('crsCode')}
+          />
+          <SelectField label="Linear unit" required hint="Fixed once the project is created: every stored number is in it." error={errors.unit} {...register('unit')}>
+            {LINEAR_UNITS.map((unit) => (
+              <option key={unit} value={unit}>
+                {UNIT_LABELS[unit]}
+              </option>
+            ))}
+          </SelectField>
+        </div>
+        <TextAreaField
+          label="proj4 definition"
+          required
+          spellCheck={false}
+          className="font-mono text-xs"
+          placeholder="+proj=lcc +lat_1=… +lat_2=… +lat_0=… +lon_0=… +x_0=… +y_0=… +ellps=GRS80 +units=us-ft +no_defs"
+          hint="Copy it from your survey control or the EPSG registry. Used only to place the grid on the map and to convert phone GPS."
+          error={errors.crsProj4}
+          {...register('crsProj4')}
+        />
+        {warning && <Alert tone="caution">{warning}</Alert>}
+        <div className="grid gap-4 sm:grid-cols-2">
+          <TextField label="Vertical datum" required placeholder="NAVD 88" hint="Printed beside every elevation." error={errors.verticalDatum} {...register('verticalDatum')} />
+          <SelectField label="Station style" required hint="100-unit stations are usual on foot projects, 1000-unit on metre projects." error={errors.stationStyle} {...register('stationStyle')}>
+            {STATION_STYLES.map((style) => (
+              <option key={style} value={style}>
+                {STATION_STYLE_LABELS[style]}
+              </option>
+            ))}
+          </SelectField>
+        </div>
+      </fieldset>
+
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" busy={create.isPending}>
+          Create project
+        </Button>
+        <Button variant="secondary" onClick={onCancel}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}

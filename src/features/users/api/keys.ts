@@ -1,0 +1,6 @@
+/** Query keys of user accounts (administration). */
+export const userKeys = {
+  all: ['users'] as const,
+  lists: () => [...userKeys.all, 'list'] as const,
+  list: () => [...userKeys.lists()] as const,
+};

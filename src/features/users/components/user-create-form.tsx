@@ -1,0 +1,62 @@
+import { ROLES, ROLE_LABELS } from '@shared/domain';
+import type { UserDto } from '@shared/api';
+import { userCreateSchema } from '@shared/schemas/auth';
+import { ProblemAlert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { SelectField, TextField } from '@/components/ui/field';
+import { applyServerErrors, useZodForm } from '@/lib/form';
+import { useCreateUser } from '../api/create-user';
+
+const FIELDS = ['email', 'name', 'role', 'password'] as const;
+
+/** Add an account: e-mail, name, role and a first password to pass on privately. */
+export function UserCreateForm({ onCreated, onCancel }: { onCreated: (user: UserDto) => void; onCancel: () => void }) {
+  const create = useCreateUser();
+  const {
+    register,
+    handleSubmit,
+    setError,
+    formState: { errors },
+  } = useZodForm(userCreateSchema, { defaultValues: { email: '', name: '', role: 'field', password: '' } });
+
+  const onSubmit = handleSubmit((values) =>
+    create.mutate(values, {
+      onSuccess: onCreated,
+      onError: (error) => applyServerErrors(error, setError, FIELDS),
+    }),
+  );
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Add user">
+      {create.error && <ProblemAlert error={create.error} fields={FIELDS} />}
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField label="Name" required autoComplete="off" error={errors.name} {...register('name')} />
+        <TextField label="Email" type="email" required autoComplete="off" autoCapitalize="none" spellCheck={false} error={errors.email} {...register('email')} />
+        <SelectField label="Role" required error={errors.role} {...register('role')}>
+          {ROLES.map((role) => (
+            <option key={role} value={role}>
+              {ROLE_LABELS[role]}
+            </option>
+          ))}
+        </SelectField>
+        <TextField
+          label="First password"
+          type="password"
+          required
+          autoComplete="new-password"
+          hint="At least 10 characters. Pass it on in person or by phone, not by e-mail."
+          error={errors.password}
+          {...register('password')}
+        />
+      </div>
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" busy={create.isPending}>
+          Add user
+        </Button>
+        <Button variant="secondary" onClick={onCancel}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,79 @@
+import { join } from 'node:path';
+import type { Page } from 'playwright-core';
+import { DEMO_SCENARIOS, DEMO_USERS } from '../../seeds/demo';
+
+export interface Journey {
+  name: string;
+  run(ctx: { page: Page; baseUrl: string; shots: string }): Promise<void>;
+  /** Console errors that are expected (e.g. the 401 of /api/auth/me before signing in). */
+  allowErrors?: RegExp[];
+}
+
+const SIGNED_OUT_PROBE = [/401 \(Unauthorized\)/];
+
+function demoUser(role: string) {
+  const user = DEMO_USERS.find((u) => u.role === role && u.active !== false);
+  if (!user) throw new Error(`no demo user with role ${role}`);
+  return user;
+}
+
+async function signIn(page: Page, baseUrl: string, role: string): Promise<void> {
+  const user = demoUser(role);
+  await page.goto(`${baseUrl}/`);
+  await page.getByLabel('Email').fill(user.email);
+  await page.getByLabel('Password').fill(user.password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByText(user.name).first().waitFor({ timeout: 10_000 });
+}
+
+function check(condition: unknown, message: string): asserts condition {
+  if (!condition) throw new Error(message);
+}
+
+export const JOURNEYS: Journey[] = [
+  {
+    name: 'the designer signs in on a desktop and sees both demo projects with their counts',
+    allowErrors: SIGNED_OUT_PROBE,
+    async run({ page, baseUrl, shots }) {
+      await page.setViewportSize({ width: 1280, height: 800 });
+      await signIn(page, baseUrl, 'designer');
+      for (const s of DEMO_SCENARIOS) {
+        await page.getByText(s.project.name).first().waitFor({ timeout: 10_000 });
+      }
+      const fontOk = await page.evaluate(() => document.fonts.check('16px "Inter Variable"'));
+      check(fontOk, 'the bundled Inter font is not available');
+      await page.screenshot({ path: join(shots, 'designer-projects-desktop.png'), fullPage: true });
+    },
+  },
+  {
+    name: 'a field crew signs in on a phone, opens the road project and sees the test holes with the digging cautions',
+    allowErrors: SIGNED_OUT_PROBE,
+    async run({ page, baseUrl, shots }) {
+      await page.setViewportSize({ width: 390, height: 844 });
+      await signIn(page, baseUrl, 'field');
+      const road = DEMO_SCENARIOS[0]!;
+      await page.getByText(road.project.name).first().click();
+      await page.getByRole('link', { name: 'Test holes' }).first().click();
+      const first = road.holes[0]!;
+      await page.getByText(first.number, { exact: true }).first().waitFor({ timeout: 10_000 });
+      await page.getByText(/one-call/i).first().waitFor();
+      const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+      check(overflow <= 1, `the page scrolls sideways on a phone by ${overflow}px`);
+      await page.screenshot({ path: join(shots, 'field-holes-phone.png'), fullPage: true });
+    },
+  },
+  {
+    name: 'the administrator sees every demo user on the Users page; a reviewer sees no Users menu',
+    allowErrors: SIGNED_OUT_PROBE,
+    async run({ page, baseUrl, shots }) {
+      await page.setViewportSize({ width: 1280, height: 800 });
+      await signIn(page, baseUrl, 'admin');
+      await page.getByRole('link', { name: 'Users' }).first().click();
+      for (const u of DEMO_USERS) await page.getByText(u.email).first().waitFor({ timeout: 10_000 });
+      await page.screenshot({ path: join(shots, 'admin-users-desktop.png'), fullPage: true });
+      await page.getByRole('button', { name: /sign out/i }).first().click();
+      await signIn(page, baseUrl, 'viewer');
+      check((await page.getByRole('link', { name: 'Users' }).count()) === 0, 'a reviewer sees the Users menu');
+    },
+  },
+];
