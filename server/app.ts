@@ -18,6 +18,7 @@ import { lineRoutes } from './modules/lines/lines.routes';
 import { holeRoutes } from './modules/holes/holes.routes';
 import { ruleRoutes } from './modules/rules/rules.routes';
 import { conflictRoutes } from './modules/conflicts/conflicts.routes';
+import { clearanceRoutes } from './modules/clearances/clearances.routes';
 import type { FileStorage } from './storage/storage';
 
 export interface AppDeps {
@@ -80,6 +81,7 @@ export function createApp(deps: AppDeps): Express {
     holeRoutes(routes, config, storage),
     ruleRoutes(routes, config),
     conflictRoutes(routes, config),
+    clearanceRoutes(routes, config),
   ]) {
     app.use(api.mountPath, api.router);
   }

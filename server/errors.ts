@@ -2,6 +2,7 @@ import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { NotFoundError, OptimisticLockError, UniqueConstraintViolationException, ForeignKeyConstraintViolationException } from '@mikro-orm/core';
 import { ZodError } from 'zod';
 import type { Problem } from '@shared/api';
+import { isGeometryError } from '@shared/geometry/errors';
 import type { Logger } from 'pino';
 
 /** The one error type of the server: a status, a stable code and a message safe to show. */
@@ -63,6 +64,8 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     let body: Problem;
     if (err instanceof AppError) {
       body = problem(err.status, err.code, err.message, err.extra);
+    } else if (isGeometryError(err)) {
+      body = problem(400, `geometry_${err.code.toLowerCase()}`, err.message);
     } else if (err instanceof ZodError) {
       body = problem(400, 'validation', 'Some fields are not valid.', { errors: zodProblemErrors(err) });
     } else if (err instanceof NotFoundError) {

@@ -20,6 +20,7 @@ import type {
   Side,
   StationStyle,
 } from './domain';
+import type { ClearanceReport } from './geometry/types';
 import type { GridPoint, ProfilePoint } from './schemas/common';
 import type { ProjectSettings } from './schemas/project';
 
@@ -242,4 +243,26 @@ export interface ActivityDto {
 export interface Page<T> {
   items: T[];
   total: number;
+}
+
+/** GET /api/projects/:id/clearances: the engine's report with the project's reference frame. */
+export interface ClearancesDto {
+  checkedAt: string;
+  crsCode: string;
+  unit: LinearUnit;
+  verticalDatum: string;
+  stationStyle: StationStyle;
+  report: ClearanceReport;
+}
+
+/** One entry of a conflict's history. */
+export interface ConflictEventDto {
+  id: number;
+  conflictId: number;
+  kind: string;
+  note: string | null;
+  data: Record<string, unknown> | null;
+  byId: number | null;
+  byName: string | null;
+  at: string;
 }

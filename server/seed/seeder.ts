@@ -11,6 +11,7 @@ import { UtilityLine } from '../modules/lines/utility-line.entity';
 import { ProjectMember } from '../modules/projects/project-member.entity';
 import { Project } from '../modules/projects/project.entity';
 import { ClearanceRule } from '../modules/rules/clearance-rule.entity';
+import { recomputeConflicts } from '../modules/clearances/clearance.service';
 import { hashPassword } from '../modules/users/password';
 import { User } from '../modules/users/user.entity';
 import type { FileStorage } from '../storage/storage';
@@ -42,13 +43,16 @@ export async function seedDemo(rootEm: EntityManager, storage: FileStorage, opti
 
   for (const scenario of DEMO_SCENARIOS) {
     if ((await em.count(Project, { name: scenario.project.name })) > 0) continue;
-    await em.transactional(async (tem) => seedScenario(tem, storage, scenario, users, options.photos ?? true));
+    await em.transactional(async (tem) => {
+      const project = await seedScenario(tem, storage, scenario, users, options.photos ?? true);
+      await recomputeConflicts(tem, project, null);
+    });
     report.projectsCreated.push(scenario.project.name);
   }
   return report;
 }
 
-async function seedScenario(em: EntityManager, storage: FileStorage, s: DemoScenario, users: Map<string, User>, withPhotos: boolean): Promise<void> {
+async function seedScenario(em: EntityManager, storage: FileStorage, s: DemoScenario, users: Map<string, User>, withPhotos: boolean): Promise<Project> {
   const { settings, description, ...projectFields } = s.project;
   const project = new Project({ ...projectFields, settings: settings! });
   project.description = description ?? null;
@@ -108,4 +112,5 @@ async function seedScenario(em: EntityManager, storage: FileStorage, s: DemoScen
     }
   }
   await em.flush();
+  return project;
 }

@@ -59,6 +59,9 @@ const EXPECTED: Record<string, Role[] | typeof PUBLIC> = {
   'patch /api/projects/:projectId/rules/:ruleId': ['admin', 'designer'],
   'delete /api/projects/:projectId/rules/:ruleId': ['admin', 'designer'],
   'get /api/projects/:projectId/conflicts/': ALL,
+  'patch /api/projects/:projectId/conflicts/:conflictId/status': ['admin', 'manager', 'designer'],
+  'get /api/projects/:projectId/conflicts/:conflictId/history': ALL,
+  'get /api/projects/:projectId/clearances/': ALL,
 };
 
 let ctx: TestContext;
@@ -80,6 +83,7 @@ function fill(path: string, f: Fixtures, userId: number): string {
     .replace(':holeId', String(f.hole.id))
     .replace(':ruleId', String(f.rule.id))
     .replace(':photoId', String(f.photo.id))
+    .replace(':conflictId', String(f.conflict.id))
     .replace(':userId', String(userId));
 }
 

@@ -8,8 +8,9 @@ import { createApp } from '@server/app';
 import { testConfig, type AppConfig } from '@server/config';
 import { openDatabase } from '@server/db';
 import { signSession } from '@server/http/session';
-import { Bore, ClearanceRule, Photo, Pit, Project, ProjectMember, TestHole, User, UtilityLine } from '@server/entities';
+import { Bore, ClearanceRule, Conflict, Photo, Pit, Project, ProjectMember, TestHole, User, UtilityLine } from '@server/entities';
 import { MemoryStorage } from '@server/storage/storage';
+import { recomputeConflicts } from '@server/modules/clearances/clearance.service';
 
 export const TEST_PASSWORD = 'correct horse battery';
 const TEST_HASH = bcrypt.hashSync(TEST_PASSWORD, 4);
@@ -57,6 +58,7 @@ export interface Fixtures {
   hole: TestHole;
   rule: ClearanceRule;
   photo: Photo;
+  conflict: Conflict;
 }
 
 /**
@@ -108,7 +110,7 @@ export async function makeFixtures(ctx: TestContext, name = `Fixture ${randomUUI
   const hole = new TestHole(project, line, randomUUID(), 'TH-1', 3000100, 13800010);
   hole.status = 'dug';
   hole.groundElevation = 100;
-  hole.depthToTop = 5;
+  hole.depthToTop = 14; // top 86, bottom 85: through the casing (centreline ≈ 84.6, radius 1.5) → an overlap conflict
   hole.createdBy = em.getReference(User, ctx.users.field.id);
   em.persist(hole);
   const rule = new ClearanceRule(project, 'water', 1.5, 10);
@@ -119,7 +121,10 @@ export async function makeFixtures(ctx: TestContext, name = `Fixture ${randomUUI
   await em.flush();
   await ctx.storage.put(photo.fileKey, Buffer.from([0xff, 0xd8, 0xff]), 'image/jpeg');
   await ctx.storage.put(photo.thumbnailKey, Buffer.from([0xff, 0xd8, 0xff]), 'image/jpeg');
-  return { project, bore, pit, line, hole, rule, photo };
+  await recomputeConflicts(em, project, null);
+  await em.flush();
+  const conflict = await em.findOneOrFail(Conflict, { project });
+  return { project, bore, pit, line, hole, rule, photo, conflict };
 }
 
 /** Row counts of every table, to prove a refused request wrote nothing. */

@@ -4,6 +4,7 @@ import type { AppConfig } from '../../config';
 import { badRequest, notFound } from '../../errors';
 import { createAudited, deleteAudited, updateAudited } from '../../http/audited';
 import { ApiRouter, idOf, type RouteMeta } from '../../http/api-router';
+import { recompute } from '../clearances/recompute-hook';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import type { Project } from '../projects/project.entity';
 import { presentBore, presentPit } from './bore.presenter';
@@ -25,7 +26,7 @@ export function boreRoutes(registry: RouteMeta[], config: AppConfig): ApiRouter 
   );
 
   api.post('/bores', { access: 'bore.write', body: boreCreateSchema }, async ({ em, project, user, body, status }) => {
-    const dto = await createAudited({ em, project, user, entity: 'bore' }, () => Object.assign(new Bore(project, body), body), presentBore);
+    const dto = await createAudited({ em, project, user, entity: 'bore' , after: recompute(project, user) }, () => Object.assign(new Bore(project, body), body), presentBore);
     status(201);
     return dto;
   });
@@ -37,12 +38,12 @@ export function boreRoutes(registry: RouteMeta[], config: AppConfig): ApiRouter 
   api.patch('/bores/:boreId', { access: 'bore.write', body: boreUpdateSchema }, async ({ em, project, user, params, body }) => {
     const bore = await findBore(em, project, idOf(params, 'boreId', 'Bore'));
     const { version, ...fields } = body;
-    return updateAudited({ em, project, user, entity: 'bore' }, bore, version, (b) => void Object.assign(b, fields), presentBore);
+    return updateAudited({ em, project, user, entity: 'bore' , after: recompute(project, user) }, bore, version, (b) => void Object.assign(b, fields), presentBore);
   });
 
   api.delete('/bores/:boreId', { access: 'bore.write' }, async ({ em, project, user, params }) => {
     const bore = await findBore(em, project, idOf(params, 'boreId', 'Bore'));
-    await deleteAudited({ em, project, user, entity: 'bore' }, bore, presentBore);
+    await deleteAudited({ em, project, user, entity: 'bore' , after: recompute(project, user) }, bore, presentBore);
   });
 
   api.get('/pits', { access: 'project.read' }, async ({ em, project }): Promise<PitDto[]> =>
@@ -54,7 +55,7 @@ export function boreRoutes(registry: RouteMeta[], config: AppConfig): ApiRouter 
     if (!bore) throw badRequest('The bore is not in this project.', [{ path: 'boreId', message: 'no such bore in this project' }]);
     const { boreId: _boreId, ...fields } = body;
     const dto = await createAudited(
-      { em, project, user, entity: 'pit' },
+      { em, project, user, entity: 'pit' , after: recompute(project, user) },
       () => Object.assign(new Pit(bore, body.kind, body.footprint, body.bottomElevation), { notes: fields.notes ?? null }),
       presentPit,
     );
@@ -66,13 +67,13 @@ export function boreRoutes(registry: RouteMeta[], config: AppConfig): ApiRouter 
     const pit = await em.findOne(Pit, { id: idOf(params, 'pitId', 'Pit'), bore: { project } });
     if (!pit) throw notFound('Pit');
     const { version, ...fields } = body;
-    return updateAudited({ em, project, user, entity: 'pit' }, pit, version, (p) => void Object.assign(p, fields), presentPit);
+    return updateAudited({ em, project, user, entity: 'pit' , after: recompute(project, user) }, pit, version, (p) => void Object.assign(p, fields), presentPit);
   });
 
   api.delete('/pits/:pitId', { access: 'pit.write' }, async ({ em, project, user, params }) => {
     const pit = await em.findOne(Pit, { id: idOf(params, 'pitId', 'Pit'), bore: { project } });
     if (!pit) throw notFound('Pit');
-    await deleteAudited({ em, project, user, entity: 'pit' }, pit, presentPit);
+    await deleteAudited({ em, project, user, entity: 'pit' , after: recompute(project, user) }, pit, presentPit);
   });
 
   return api;

@@ -5,6 +5,7 @@ import type { AppConfig } from '../../config';
 import { AppError, badRequest, conflict, notFound } from '../../errors';
 import { createAudited, deleteAudited, updateAudited } from '../../http/audited';
 import { ApiRouter, idOf, type RouteMeta } from '../../http/api-router';
+import { recompute } from '../clearances/recompute-hook';
 import type { FileStorage } from '../../storage/storage';
 import { UtilityLine } from '../lines/utility-line.entity';
 import type { Project } from '../projects/project.entity';
@@ -58,7 +59,7 @@ export function holeRoutes(registry: RouteMeta[], config: AppConfig, storage: Fi
     const position = await resolvePosition(em, project, body);
     const { clientId, lineId: _lineId, boreId: _boreId, dugAt, ...fields } = body;
     const dto = await createAudited(
-      { em, project, user, entity: 'hole' },
+      { em, project, user, entity: 'hole' , after: recompute(project, user) },
       () => {
         const hole = new TestHole(project, line, clientId, body.number, position.easting, position.northing);
         Object.assign(hole, fields, position, { dugAt: dugAt ? new Date(dugAt) : null, createdBy: em.getReference(User, user.id) });
@@ -88,7 +89,7 @@ export function holeRoutes(registry: RouteMeta[], config: AppConfig, storage: Fi
     const position = body.positionSource !== undefined ? await resolvePosition(em, project, { ...body, positionSource: body.positionSource }) : null;
     const photos = (await photoCounts(em, [hole.id])).get(hole.id) ?? 0;
     return updateAudited(
-      { em, project, user, entity: 'hole' },
+      { em, project, user, entity: 'hole' , after: recompute(project, user) },
       hole,
       version,
       (h) => {
@@ -106,7 +107,7 @@ export function holeRoutes(registry: RouteMeta[], config: AppConfig, storage: Fi
     const hole = await findHole(em, project, params);
     assertCanEdit(user, hole);
     const keys = (await em.find(Photo, { hole })).flatMap((p) => [p.fileKey, p.thumbnailKey]);
-    await deleteAudited({ em, project, user, entity: 'hole' }, hole, (h) => presentHole(h));
+    await deleteAudited({ em, project, user, entity: 'hole' , after: recompute(project, user) }, hole, (h) => presentHole(h));
     await Promise.all(keys.map((k) => storage.delete(k)));
   });
 
@@ -116,7 +117,7 @@ export function holeRoutes(registry: RouteMeta[], config: AppConfig, storage: Fi
     const { version, ...fields } = body;
     const photos = (await photoCounts(em, [hole.id])).get(hole.id) ?? 0;
     return updateAudited(
-      { em, project, user, entity: 'hole' },
+      { em, project, user, entity: 'hole' , after: recompute(project, user) },
       hole,
       version,
       (h) => {
@@ -142,7 +143,7 @@ export function holeRoutes(registry: RouteMeta[], config: AppConfig, storage: Fi
       throw new AppError(409, 'wrong_state', `Only a reviewed hole can be reopened; ${hole.number} is ${hole.status}.`);
     }
     return updateAudited(
-      { em, project, user, entity: 'hole' },
+      { em, project, user, entity: 'hole' , after: recompute(project, user) },
       hole,
       body.version,
       (h) => {

@@ -4,6 +4,7 @@ import type { AppConfig } from '../../config';
 import { notFound } from '../../errors';
 import { createAudited, deleteAudited, updateAudited } from '../../http/audited';
 import { ApiRouter, idOf, type RouteMeta } from '../../http/api-router';
+import { recompute } from '../clearances/recompute-hook';
 import { presentLine } from './line.presenter';
 import { UtilityLine } from './utility-line.entity';
 
@@ -17,7 +18,7 @@ export function lineRoutes(registry: RouteMeta[], config: AppConfig): ApiRouter 
 
   api.post('/', { access: 'line.write', body: lineCreateSchema }, async ({ em, project, user, body, status }) => {
     const dto = await createAudited(
-      { em, project, user, entity: 'line' },
+      { em, project, user, entity: 'line' , after: recompute(project, user) },
       () => Object.assign(new UtilityLine(project, body.label, body.owner, body.kind, body.path), body, { contactEmail: body.contactEmail || null }),
       presentLine,
     );
@@ -36,7 +37,7 @@ export function lineRoutes(registry: RouteMeta[], config: AppConfig): ApiRouter 
     if (!line) throw notFound('Line');
     const { version, ...fields } = body;
     return updateAudited(
-      { em, project, user, entity: 'line' },
+      { em, project, user, entity: 'line' , after: recompute(project, user) },
       line,
       version,
       (l) => {
@@ -50,7 +51,7 @@ export function lineRoutes(registry: RouteMeta[], config: AppConfig): ApiRouter 
   api.delete('/:lineId', { access: 'line.write' }, async ({ em, project, user, params }) => {
     const line = await em.findOne(UtilityLine, { id: idOf(params, 'lineId', 'Line'), project });
     if (!line) throw notFound('Line');
-    await deleteAudited({ em, project, user, entity: 'line' }, line, presentLine);
+    await deleteAudited({ em, project, user, entity: 'line' , after: recompute(project, user) }, line, presentLine);
   });
 
   return api;

@@ -6,6 +6,7 @@ import type { AppConfig } from '../../config';
 import { conflict, notFound } from '../../errors';
 import { createAudited, deleteAudited, updateAudited } from '../../http/audited';
 import { ApiRouter, idOf, type RouteMeta } from '../../http/api-router';
+import { recompute } from '../clearances/recompute-hook';
 import { ActivityEntry } from '../activity/activity-entry.entity';
 import { User } from '../users/user.entity';
 import { assertValidCrs } from './crs-check';
@@ -58,7 +59,7 @@ export function projectRoutes(registry: RouteMeta[], config: AppConfig): ApiRout
     const counts = (await projectCounts(em, [project.id])).get(project.id)!;
     const { version, ...fields } = body;
     return updateAudited(
-      { em, project, user, entity: 'project' },
+      { em, project, user, entity: 'project', after: recompute(project, user) },
       project,
       version,
       (p) => {

@@ -4,6 +4,7 @@ import type { AppConfig } from '../../config';
 import { conflict, notFound } from '../../errors';
 import { createAudited, deleteAudited, updateAudited } from '../../http/audited';
 import { ApiRouter, idOf, type RouteMeta } from '../../http/api-router';
+import { recompute } from '../clearances/recompute-hook';
 import { ClearanceRule } from './clearance-rule.entity';
 
 export function presentRule(r: ClearanceRule): ClearanceRuleDto {
@@ -31,7 +32,7 @@ export function ruleRoutes(registry: RouteMeta[], config: AppConfig): ApiRouter 
   api.post('/', { access: 'rule.write', body: clearanceRuleSchema }, async ({ em, project, user, body, status }) => {
     if ((await em.count(ClearanceRule, { project, kind: body.kind })) > 0) throw conflict(`There is already a rule for ${body.kind}; edit it instead.`);
     const dto = await createAudited(
-      { em, project, user, entity: 'rule' },
+      { em, project, user, entity: 'rule' , after: recompute(project, user) },
       () => Object.assign(new ClearanceRule(project, body.kind, body.vertical, body.horizontal), { source: body.source ?? null }),
       presentRule,
     );
@@ -43,13 +44,13 @@ export function ruleRoutes(registry: RouteMeta[], config: AppConfig): ApiRouter 
     const rule = await em.findOne(ClearanceRule, { id: idOf(params, 'ruleId', 'Rule'), project });
     if (!rule) throw notFound('Rule');
     const { version, ...fields } = body;
-    return updateAudited({ em, project, user, entity: 'rule' }, rule, version, (r) => void Object.assign(r, fields), presentRule);
+    return updateAudited({ em, project, user, entity: 'rule' , after: recompute(project, user) }, rule, version, (r) => void Object.assign(r, fields), presentRule);
   });
 
   api.delete('/:ruleId', { access: 'rule.write' }, async ({ em, project, user, params }) => {
     const rule = await em.findOne(ClearanceRule, { id: idOf(params, 'ruleId', 'Rule'), project });
     if (!rule) throw notFound('Rule');
-    await deleteAudited({ em, project, user, entity: 'rule' }, rule, presentRule);
+    await deleteAudited({ em, project, user, entity: 'rule' , after: recompute(project, user) }, rule, presentRule);
   });
 
   return api;
