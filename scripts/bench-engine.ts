@@ -212,7 +212,8 @@ export function runEngineBench(size: CorridorSize = { lines: 5000, holes: 20000,
   };
 }
 
-function main(): void {
+/** Run the engine benchmark and print its figures. */
+export function printEngineBench(): void {
   const r = runEngineBench();
   const mb = (b: number) => `${(b / 1048576).toFixed(1)} MB`;
   const ms = (m: number) => `${m.toFixed(1)} ms`;
@@ -229,4 +230,4 @@ function main(): void {
   if (!r.identical) process.exitCode = 1;
 }
 
-if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) main();
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) printEngineBench();

@@ -18,15 +18,20 @@ import { JOURNEYS } from './journeys';
 
 const chromiumPath = ensureChromium();
 const root = process.cwd();
+// Built into a folder of its own, so two test runs (or a running dev build) never collide.
+const clientDir = mkdtempSync(join(tmpdir(), 'tl-e2e-dist-'));
 console.log('Building the client…');
-execFileSync(join(root, 'node_modules/.bin/vite'), ['build', '--logLevel', 'warn'], { stdio: 'inherit' });
+execFileSync(join(root, 'node_modules/.bin/vite'), ['build', '--logLevel', 'warn', '--outDir', clientDir, '--emptyOutDir'], { stdio: 'inherit' });
+/** E2E_ONLY=<text> runs only the journeys whose name contains the text. */
+const only = process.env.E2E_ONLY;
+const journeys = only ? JOURNEYS.filter((j) => j.name.includes(only)) : JOURNEYS;
 
 const dataDir = mkdtempSync(join(tmpdir(), 'tl-e2e-'));
 const config = testConfig({ dataDir, databasePath: join(dataDir, 'threadline.sqlite') });
 const orm = await openDatabase(config.databasePath);
 const storage = new DiskStorage(join(dataDir, 'files'));
 await seedDemo(orm.em, storage);
-const app = createApp({ orm, config, storage, clientDir: join(root, 'dist') });
+const app = createApp({ orm, config, storage, clientDir });
 const server = app.listen(0, '127.0.0.1');
 await new Promise<void>((resolve) => server.once('listening', () => resolve()));
 const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
@@ -37,7 +42,7 @@ const browser = await launchBrowser(chromiumPath);
 let passed = 0;
 let failed = 0;
 try {
-  for (const journey of JOURNEYS) {
+  for (const journey of journeys) {
     await browser.clearCookies(); // each journey starts signed out
     const page = await browser.newPage();
     const errors: string[] = [];
@@ -68,6 +73,7 @@ try {
   server.close();
   await orm.close();
   rmSync(dataDir, { recursive: true, force: true });
+  rmSync(clientDir, { recursive: true, force: true });
 }
 console.log(`\nbrowser: ${passed} passed, ${failed} failed`);
 process.exit(failed === 0 && passed > 0 ? 0 : 1);

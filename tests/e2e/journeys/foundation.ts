@@ -1,36 +1,8 @@
 import { join } from 'node:path';
-import type { Page } from 'playwright-core';
-import { DEMO_SCENARIOS, DEMO_USERS } from '../../seeds/demo';
+import { DEMO_SCENARIOS, DEMO_USERS } from '../../../seeds/demo';
+import { check, signIn, SIGNED_OUT_PROBE, type Journey } from './support';
 
-export interface Journey {
-  name: string;
-  run(ctx: { page: Page; baseUrl: string; shots: string }): Promise<void>;
-  /** Console errors that are expected (e.g. the 401 of /api/auth/me before signing in). */
-  allowErrors?: RegExp[];
-}
-
-const SIGNED_OUT_PROBE = [/401 \(Unauthorized\)/];
-
-function demoUser(role: string) {
-  const user = DEMO_USERS.find((u) => u.role === role && u.active !== false);
-  if (!user) throw new Error(`no demo user with role ${role}`);
-  return user;
-}
-
-async function signIn(page: Page, baseUrl: string, role: string): Promise<void> {
-  const user = demoUser(role);
-  await page.goto(`${baseUrl}/`);
-  await page.getByLabel('Email').fill(user.email);
-  await page.getByLabel('Password').fill(user.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByText(user.name).first().waitFor({ timeout: 10_000 });
-}
-
-function check(condition: unknown, message: string): asserts condition {
-  if (!condition) throw new Error(message);
-}
-
-export const JOURNEYS: Journey[] = [
+export const FOUNDATION_JOURNEYS: Journey[] = [
   {
     name: 'the designer signs in on a desktop and sees both demo projects with their counts',
     allowErrors: SIGNED_OUT_PROBE,
