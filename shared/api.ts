@@ -266,3 +266,31 @@ export interface ConflictEventDto {
   byName: string | null;
   at: string;
 }
+
+/** One row of a survey point file, as matched against the test holes (preview and commit). */
+export interface SurveyShotRowDto {
+  /** Row number in the file, counting the header as row 1. */
+  row: number;
+  point: string;
+  northing: number | null;
+  easting: number | null;
+  elevation: number | null;
+  description: string;
+  shot: 'top' | 'ground' | null;
+  holeId: number | null;
+  holeNumber: string | null;
+  lineLabel: string | null;
+  outcome: 'match' | 'no_hole' | 'ambiguous' | 'invalid' | 'locked';
+  message: string | null;
+  /** Field → before/after for a match, e.g. surveyedTopElevation. */
+  changes: Record<string, { before: number | null; after: number | null }>;
+}
+
+/** What a survey import would do (preview) or did (commit). */
+export interface SurveyImportResultDto {
+  rows: SurveyShotRowDto[];
+  matched: number;
+  problems: number;
+  holesChanged: number;
+  committed: boolean;
+}
