@@ -1,4 +1,4 @@
-import type { EntityManager } from '@mikro-orm/sqlite';
+import { OptimisticLockError, type EntityManager, type EntityName, type FilterQuery } from '@mikro-orm/sqlite';
 import { staleVersion } from '../errors';
 import { logActivity } from '../modules/activity/activity.service';
 import type { Project } from '../modules/projects/project.entity';
@@ -47,15 +47,25 @@ export async function updateAudited<E extends { id: number; version: number }, D
 ): Promise<D> {
   if (version !== entity.version) throw staleVersion(present(entity));
   const before = present(entity);
-  return audit.em.transactional(async (em) => {
-    const managed = em.merge(entity);
-    await apply(managed, em);
-    logActivity(em, { project: audit.project, user: audit.user, entity: audit.entity, entityId: managed.id, action, before, after: present(managed) });
-    await em.flush();
-    await audit.after?.(em);
-    await em.flush();
-    return present(managed);
-  });
+  try {
+    return await audit.em.transactional(async (em) => {
+      const managed = em.merge(entity);
+      await apply(managed, em);
+      logActivity(em, { project: audit.project, user: audit.user, entity: audit.entity, entityId: managed.id, action, before, after: present(managed) });
+      await em.flush();
+      await audit.after?.(em);
+      await em.flush();
+      return present(managed);
+    });
+  } catch (err) {
+    // Someone saved between our version check and our write: answer like any stale edit,
+    // with the record as it stands now.
+    if (err instanceof OptimisticLockError) {
+      const fresh = await audit.em.fork().findOne(entity.constructor as EntityName<E>, { id: entity.id } as FilterQuery<E>);
+      if (fresh) throw staleVersion(present(fresh as E));
+    }
+    throw err;
+  }
 }
 
 /** Delete a record, logging what it held. */
