@@ -1,14 +1,14 @@
-import { PrimaryKey, Property } from '@mikro-orm/core';
+import { PrimaryKey, Property, DateTimeType } from '@mikro-orm/core';
 
 /** Every table: an integer id and timestamps. */
 export abstract class BaseEntity {
   @PrimaryKey({ type: 'integer' })
   id!: number;
 
-  @Property({ type: 'datetime' })
+  @Property({ type: DateTimeType })
   createdAt: Date = new Date();
 
-  @Property({ type: 'datetime', onUpdate: () => new Date() })
+  @Property({ type: DateTimeType, onUpdate: () => new Date() })
   updatedAt: Date = new Date();
 }
 

@@ -167,7 +167,6 @@ describe('writes that succeed', () => {
   });
 
   it('when a hole is reviewed, then it is locked until reopened with a reason', async () => {
-    const em = ctx.orm.em.fork();
     const hole = await request(ctx.app).get(`${base()}/holes/${f.hole.id}`).set('Cookie', ctx.cookie('designer'));
     const accepted = await request(ctx.app).post(`${base()}/holes/${f.hole.id}/review`).set('Cookie', ctx.cookie('designer')).send({ decision: 'accept', version: hole.body.version });
     expect(accepted.status).toBe(200);
@@ -179,6 +178,26 @@ describe('writes that succeed', () => {
     expect(reopened.status).toBe(200);
     expect(reopened.body.status).toBe('dug');
     expect(reopened.body.reviewNote).toBe('depth looks wrong');
-    void em;
+  });
+});
+
+describe('versions change only on the record written', () => {
+  it('when a field crew edits a hole, then the project, its line, the bore and the user keep their versions', async () => {
+    const g = await makeFixtures(ctx);
+    const versions = async () => {
+      const e = ctx.orm.em.fork();
+      return {
+        project: (await e.findOneOrFail('Project', g.project.id) as { version: number }).version,
+        line: (await e.findOneOrFail('UtilityLine', g.line.id) as { version: number }).version,
+        bore: (await e.findOneOrFail('Bore', g.bore.id) as { version: number }).version,
+        user: (await e.findOneOrFail('User', ctx.users.field.id) as { version: number }).version,
+      };
+    };
+    const before = await versions();
+    const hole = await request(ctx.app).get(`/api/projects/${g.project.id}/holes/${g.hole.id}`).set('Cookie', ctx.cookie('field'));
+    const res = await request(ctx.app).patch(`/api/projects/${g.project.id}/holes/${g.hole.id}`).set('Cookie', ctx.cookie('field')).send({ notes: 'rod and tape photo taken', version: hole.body.version });
+    expect(res.status).toBe(200);
+    expect(res.body.version).toBe(hole.body.version + 1);
+    expect(await versions()).toEqual(before);
   });
 });

@@ -1,4 +1,4 @@
-import { Entity, Enum, ManyToOne, Property, Unique } from '@mikro-orm/core';
+import { Entity, Enum, ManyToOne, Property, Unique, DateTimeType } from '@mikro-orm/core';
 import { CLEARANCE_STATUSES, CONFLICT_STATUSES, type ClearanceStatus, type ConflictStatus } from '@shared/domain';
 import { VersionedEntity } from '../base.entity';
 import { Bore } from '../bores/bore.entity';
@@ -28,7 +28,7 @@ export class Conflict extends VersionedEntity {
   @Property({ type: 'json' })
   figures: Record<string, unknown> = {};
 
-  @Property({ type: 'datetime' })
+  @Property({ type: DateTimeType })
   checkedAt: Date = new Date();
 
   @Enum({ items: () => CONFLICT_STATUSES, type: 'string' })
@@ -41,7 +41,7 @@ export class Conflict extends VersionedEntity {
   @ManyToOne({ entity: () => User, nullable: true, deleteRule: 'set null' })
   assignee: User | null = null;
 
-  @Property({ type: 'datetime', nullable: true })
+  @Property({ type: DateTimeType, nullable: true })
   dueDate: Date | null = null;
 
   @Property({ type: 'text', nullable: true })
@@ -50,13 +50,13 @@ export class Conflict extends VersionedEntity {
   @Property({ type: 'string', length: 160, nullable: true })
   responsibleParty: string | null = null;
 
-  @Property({ type: 'datetime', nullable: true })
+  @Property({ type: DateTimeType, nullable: true })
   ownerNotifiedAt: Date | null = null;
 
-  @Property({ type: 'datetime', nullable: true })
+  @Property({ type: DateTimeType, nullable: true })
   answerDueAt: Date | null = null;
 
-  @Property({ type: 'datetime', nullable: true })
+  @Property({ type: DateTimeType, nullable: true })
   closedAt: Date | null = null;
 
   @Property({ type: 'text', nullable: true })
