@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
+import { Bore, Project, User, UtilityLine } from '@server/entities';
 import { makeFixtures, makeTestApp, tableCounts, type Fixtures, type TestContext } from './helpers';
 
 let ctx: TestContext;
@@ -187,10 +188,10 @@ describe('versions change only on the record written', () => {
     const versions = async () => {
       const e = ctx.orm.em.fork();
       return {
-        project: (await e.findOneOrFail('Project', g.project.id) as { version: number }).version,
-        line: (await e.findOneOrFail('UtilityLine', g.line.id) as { version: number }).version,
-        bore: (await e.findOneOrFail('Bore', g.bore.id) as { version: number }).version,
-        user: (await e.findOneOrFail('User', ctx.users.field.id) as { version: number }).version,
+        project: (await e.findOneOrFail(Project, g.project.id)).version,
+        line: (await e.findOneOrFail(UtilityLine, g.line.id)).version,
+        bore: (await e.findOneOrFail(Bore, g.bore.id)).version,
+        user: (await e.findOneOrFail(User, ctx.users.field.id)).version,
       };
     };
     const before = await versions();
