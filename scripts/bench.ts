@@ -4,8 +4,12 @@
  * Add a feature's benchmark as another entry of BENCHES.
  */
 import { printEngineBench } from './bench-engine';
+import { printMapBench } from './bench-map';
 
-const BENCHES: { name: string; run: () => Promise<void> | void }[] = [{ name: 'clearance engine', run: printEngineBench }];
+const BENCHES: { name: string; run: () => Promise<void> | void }[] = [
+  { name: 'clearance engine', run: printEngineBench },
+  { name: 'plan & profile map (headless Chromium)', run: printMapBench },
+];
 
 for (const bench of BENCHES) {
   console.log(`\n=== ${bench.name} ===`);

@@ -19,6 +19,12 @@ import { holeRoutes } from './modules/holes/holes.routes';
 import { ruleRoutes } from './modules/rules/rules.routes';
 import { conflictRoutes } from './modules/conflicts/conflicts.routes';
 import { clearanceRoutes } from './modules/clearances/clearances.routes';
+import { adminMailRoutes, projectMailRoutes } from './modules/mail/mail.routes';
+import type { MailRuntime } from './modules/mail/mail-runtime';
+import { stakeoutRoutes } from './modules/stakeout/stakeout.routes';
+import { tileRoutes } from './modules/tiles/tiles.routes';
+import { exportRoutes } from './modules/exports/exports.routes';
+import { importRoutes } from './modules/imports/imports.routes';
 import type { FileStorage } from './storage/storage';
 
 export interface AppDeps {
@@ -28,10 +34,14 @@ export interface AppDeps {
   logger?: Logger;
   /** Folder of the built client to serve; omitted in API tests. */
   clientDir?: string;
+  /** Outgoing mail (server/index.ts starts it); omitted in API tests, which drive the outbox themselves. */
+  mail?: MailRuntime;
 }
 
 /** JSON bodies larger than this get 413. Photos go through multipart uploads, not JSON. */
 export const JSON_BODY_LIMIT = '1mb';
+/** Line imports carry the file in the JSON body (GeoJSON, DXF or CSV text up to 15 million characters). */
+export const IMPORT_BODY_LIMIT = '32mb';
 
 /**
  * Build the Express app with no port and no side effects, so tests can drive it with supertest.
@@ -69,6 +79,8 @@ export function createApp(deps: AppDeps): Express {
   });
   routes.push({ method: 'get', path: '/api/health', access: 'public', project: false, hasBody: false });
 
+  // Parsed first with a larger limit; the general parser below then leaves these bodies alone.
+  app.use('/api/projects/:projectId/imports', express.json({ limit: IMPORT_BODY_LIMIT }));
   app.use('/api', express.json({ limit: JSON_BODY_LIMIT }), cookieParser(), originCheck(config.appOrigins));
   app.use('/api', (_req, _res, next) => RequestContext.create(orm.em, next));
 
@@ -80,8 +92,14 @@ export function createApp(deps: AppDeps): Express {
     lineRoutes(routes, config),
     holeRoutes(routes, config, storage),
     ruleRoutes(routes, config),
-    conflictRoutes(routes, config),
+    conflictRoutes(routes, config, deps.mail ?? null),
     clearanceRoutes(routes, config),
+    stakeoutRoutes(routes, config),
+    projectMailRoutes(routes, config, deps.mail ?? null),
+    adminMailRoutes(routes, config, deps.mail ?? null),
+    tileRoutes(routes, config),
+    exportRoutes(routes, config, storage),
+    importRoutes(routes, config),
   ]) {
     app.use(api.mountPath, api.router);
   }

@@ -2,6 +2,7 @@ import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { z } from 'zod';
+import { loadMailConfig, testMailConfig, type MailConfig } from './modules/mail/mail-config';
 
 const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
@@ -17,7 +18,23 @@ const envSchema = z.object({
   SEED_DEMO: z.enum(['true', 'false']).optional(),
   LOGIN_MAX_ATTEMPTS: z.coerce.number().int().positive().default(10),
   LOGIN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
+  /** Where photos go: `disk` (DATA_DIR/files, the default) or `s3` (S3-compatible object storage). */
+  STORAGE: z.enum(['disk', 's3']).default('disk'),
+  S3_ENDPOINT: z.url().optional(),
+  S3_BUCKET: z.string().min(3).max(63).optional(),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  /** Largest photo accepted, in megabytes (MiB). */
+  PHOTO_MAX_MB: z.coerce.number().positive().max(200).default(15),
+  /** Largest photo accepted, in megapixels (decoded size is checked from the header first). */
+  PHOTO_MAX_MEGAPIXELS: z.coerce.number().positive().max(500).default(50),
 });
+
+/** Where uploaded files are kept. */
+export type StorageConfig =
+  | { kind: 'disk' }
+  | { kind: 's3'; endpoint: string | null; bucket: string; region: string; accessKeyId: string | null; secretAccessKey: string | null };
 
 /** Settings the server runs with, checked at start. */
 export interface AppConfig {
@@ -33,6 +50,12 @@ export interface AppConfig {
   seedDemo: boolean;
   loginMaxAttempts: number;
   loginWindowMinutes: number;
+  /** Outgoing mail: SMTP server, From address, the development catcher (server/modules/mail/mail-config.ts). */
+  mail: MailConfig;
+  storage: StorageConfig;
+  /** Upload limits for photos: bytes per file and decoded pixels per image. */
+  photoMaxBytes: number;
+  photoMaxPixels: number;
 }
 
 export class ConfigError extends Error {}
@@ -69,7 +92,35 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     seedDemo: e.SEED_DEMO ? e.SEED_DEMO === 'true' : e.NODE_ENV !== 'production',
     loginMaxAttempts: e.LOGIN_MAX_ATTEMPTS,
     loginWindowMinutes: e.LOGIN_WINDOW_MINUTES,
+    mail: mailConfigOf(env, e.NODE_ENV),
+    storage: storageConfig(e),
+    photoMaxBytes: Math.round(e.PHOTO_MAX_MB * 1024 * 1024),
+    photoMaxPixels: Math.round(e.PHOTO_MAX_MEGAPIXELS * 1_000_000),
   };
+}
+
+function storageConfig(e: z.infer<typeof envSchema>): StorageConfig {
+  if (e.STORAGE === 'disk') return { kind: 'disk' };
+  if (!e.S3_BUCKET) throw new ConfigError('STORAGE=s3 needs S3_BUCKET (and S3_ENDPOINT for a non-AWS service).');
+  if (Boolean(e.S3_ACCESS_KEY_ID) !== Boolean(e.S3_SECRET_ACCESS_KEY)) {
+    throw new ConfigError('Set both S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY, or neither (to use the SDK\'s own credential chain).');
+  }
+  return {
+    kind: 's3',
+    endpoint: e.S3_ENDPOINT ?? null,
+    bucket: e.S3_BUCKET,
+    region: e.S3_REGION,
+    accessKeyId: e.S3_ACCESS_KEY_ID ?? null,
+    secretAccessKey: e.S3_SECRET_ACCESS_KEY ?? null,
+  };
+}
+
+function mailConfigOf(env: NodeJS.ProcessEnv, nodeEnv: AppConfig['env']): MailConfig {
+  try {
+    return loadMailConfig(env, nodeEnv);
+  } catch (err) {
+    throw new ConfigError((err as Error).message);
+  }
 }
 
 function localSecret(dataDir: string): string {
@@ -96,6 +147,10 @@ export function testConfig(overrides: Partial<AppConfig> = {}): AppConfig {
     seedDemo: false,
     loginMaxAttempts: 1000,
     loginWindowMinutes: 15,
+    mail: testMailConfig(),
+    storage: { kind: 'disk' },
+    photoMaxBytes: 15 * 1024 * 1024,
+    photoMaxPixels: 50_000_000,
     ...overrides,
   };
 }

@@ -6,9 +6,11 @@ import { Conflict } from './modules/conflicts/conflict.entity';
 import { Photo } from './modules/holes/photo.entity';
 import { TestHole } from './modules/holes/test-hole.entity';
 import { UtilityLine } from './modules/lines/utility-line.entity';
+import { OutboxMessage } from './modules/mail/outbox-message.entity';
 import { ProjectMember } from './modules/projects/project-member.entity';
 import { Project } from './modules/projects/project.entity';
 import { ClearanceRule } from './modules/rules/clearance-rule.entity';
+import { StakeMark } from './modules/stakeout/stake-mark.entity';
 import { User } from './modules/users/user.entity';
 
 /**
@@ -28,6 +30,9 @@ export const ENTITIES = [
   Conflict,
   ConflictEvent,
   ActivityEntry,
+  OutboxMessage,
+  StakeMark,
 ];
 
 export { ActivityEntry, Bore, ClearanceRule, Conflict, ConflictEvent, Photo, Pit, Project, ProjectMember, TestHole, User, UtilityLine };
+export { OutboxMessage, StakeMark };

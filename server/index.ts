@@ -4,7 +4,9 @@ import { createApp } from './app';
 import { ConfigError, loadConfig } from './config';
 import { openDatabase } from './db';
 import { seedDemo } from './seed/seeder';
-import { DiskStorage } from './storage/storage';
+import { startMail } from './modules/mail/mail-runtime';
+import { createStorage, describeStorage } from './storage/create-storage';
+import { requeuePendingPhotos } from './modules/holes/photos.service';
 import { User } from './modules/users/user.entity';
 import { DEMO_USERS } from '../seeds/demo';
 
@@ -22,7 +24,7 @@ async function main(): Promise<void> {
   }
   const logger = pino({ level: config.logLevel });
   const orm = await openDatabase(config.databasePath);
-  const storage = new DiskStorage(join(config.dataDir, 'files'));
+  const storage = createStorage(config);
 
   let seeded = false;
   if (config.seedDemo && (await orm.em.fork().count(User, {})) === 0) {
@@ -31,7 +33,15 @@ async function main(): Promise<void> {
     logger.info({ projects: report.projectsCreated }, 'demo scenario loaded');
   }
 
-  const app = createApp({ orm, config, storage, logger, clientDir: join(process.cwd(), 'dist') });
+  // Photos whose thumbnails were not made before the last stop are queued again.
+  const requeued = await requeuePendingPhotos(orm.em, storage, logger);
+  if (requeued > 0) logger.info({ photos: requeued }, 'photo thumbnails queued again after a restart');
+
+  // Mail: the outbox worker runs in this process (never started by createApp, so tests drive it).
+  const mail = await startMail(config, orm, logger);
+  mail.worker.start();
+
+  const app = createApp({ orm, config, storage, logger, clientDir: join(process.cwd(), 'dist'), mail });
   const server = app.listen(config.port, config.host, (err?: Error) => {
     if (err) {
       console.error(`Could not listen on ${config.host}:${config.port}: ${err.message}. Set PORT to a free port.`);
@@ -40,7 +50,7 @@ async function main(): Promise<void> {
     const address = server.address();
     const port = typeof address === 'object' && address ? address.port : config.port;
     const host = config.host === '0.0.0.0' ? 'localhost' : config.host;
-    const lines = [``, `Threadline is running at http://${host}:${port}/`, `Database: ${config.databasePath}`];
+    const lines = [``, `Threadline is running at http://${host}:${port}/`, `Database: ${config.databasePath}`, `Files: ${describeStorage(config)}`];
     if (config.seedDemo) {
       lines.push(seeded ? 'Demo scenario loaded. Demo sign-ins:' : 'Demo sign-ins (if unchanged):');
       for (const u of DEMO_USERS.filter((d) => d.active !== false)) lines.push(`  ${u.role.padEnd(9)} ${u.email.padEnd(34)} ${u.password}`);
@@ -49,7 +59,7 @@ async function main(): Promise<void> {
   });
 
   const shutdown = () => {
-    server.close(() => void orm.close().then(() => process.exit(0)));
+    server.close(() => void mail.close().then(() => orm.close()).then(() => process.exit(0)));
     setTimeout(() => process.exit(0), 3000).unref();
   };
   process.on('SIGINT', shutdown);

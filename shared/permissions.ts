@@ -28,6 +28,12 @@ export const PERMISSIONS = {
   'export.read': ['admin', 'manager', 'designer', 'surveyor', 'field', 'viewer'],
   'stakeout.write': ['admin', 'surveyor'],
   'mail.send': ['admin', 'manager'],
+  /** Upload or remove a project's base-map tiles (MBTiles). */
+  'basemap.upload': ['admin'],
+  /** Comments on a conflict's history: everyone who works the job (reviewers read only). */
+  'conflict.comment': ['admin', 'manager', 'designer', 'surveyor', 'field'],
+  /** The outbox and the development mail catcher (Admin → Mail). */
+  'mail.admin': ['admin'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof PERMISSIONS;

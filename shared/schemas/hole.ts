@@ -34,6 +34,9 @@ const holeFields = z.strictObject({
   crew: optionalText(120),
   dugAt: isoDate.nullish(),
   notes: optionalText(4000),
+  soil: optionalText(200),
+  groundwater: optionalText(200),
+  restoration: optionalText(200),
 });
 
 function positionCheck(

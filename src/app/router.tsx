@@ -4,7 +4,10 @@ import { authKeys } from '@/features/auth/api/keys';
 import { boresQueryOptions } from '@/features/bores/api/get-bores';
 import { pitsQueryOptions } from '@/features/bores/api/get-pits';
 import { holesQueryOptions } from '@/features/holes/api/get-holes';
+import { conflictsQueryOptions } from '@/features/conflicts/api/get-conflicts';
 import { linesQueryOptions } from '@/features/lines/api/get-lines';
+import { clearancesQueryOptions as planClearancesQueryOptions } from '@/features/plan/api/get-clearances';
+import { tilesetQueryOptions } from '@/features/plan/api/get-tileset';
 import { projectQueryOptions } from '@/features/projects/api/get-project';
 import { projectsQueryOptions } from '@/features/projects/api/get-projects';
 import { queryClient } from '@/lib/query-client';
@@ -41,7 +44,8 @@ export const router = createBrowserRouter([
     errorElement: <RouteError />,
     hydrateFallbackElement: null,
     children: [
-      { index: true, element: <Navigate to="/projects" replace /> },
+      // Managers land on a conflict register, everyone else on the projects (see routes/landing.tsx).
+      { index: true, element: page(() => import('./routes/landing')) },
       {
         path: 'projects',
         loader: () => {
@@ -57,7 +61,19 @@ export const router = createBrowserRouter([
         children: [
           // The plan view will become the landing tab once it exists.
           { index: true, element: <Navigate to="holes" replace /> },
-          { path: 'plan', element: page(() => import('./routes/project/plan')) },
+          {
+            path: 'plan',
+            loader: (args) =>
+              prefetch(args, (id) => [
+                queryClient.prefetchQuery(boresQueryOptions(id)),
+                queryClient.prefetchQuery(pitsQueryOptions(id)),
+                queryClient.prefetchQuery(linesQueryOptions(id)),
+                queryClient.prefetchQuery(holesQueryOptions(id)),
+                queryClient.prefetchQuery(planClearancesQueryOptions(id)),
+                queryClient.prefetchQuery(tilesetQueryOptions(id)),
+              ]),
+            element: page(() => import('./routes/project/plan')),
+          },
           {
             path: 'holes',
             loader: (args) =>
@@ -68,6 +84,11 @@ export const router = createBrowserRouter([
               ]),
             element: page(() => import('./routes/project/holes')),
           },
+          // Test holes: log one, import survey shots, one hole, edit it (issue 4).
+          { path: 'holes/new', element: page(() => import('./routes/project/hole-new')) },
+          { path: 'holes/import', element: page(() => import('./routes/project/holes-import')) },
+          { path: 'holes/:holeId', element: page(() => import('./routes/project/hole-detail')) },
+          { path: 'holes/:holeId/edit', element: page(() => import('./routes/project/hole-edit')) },
           {
             path: 'lines',
             loader: (args) => prefetch(args, (id) => [queryClient.prefetchQuery(linesQueryOptions(id))]),
@@ -78,7 +99,13 @@ export const router = createBrowserRouter([
             loader: (args) => prefetch(args, (id) => [queryClient.prefetchQuery(boresQueryOptions(id)), queryClient.prefetchQuery(pitsQueryOptions(id))]),
             element: page(() => import('./routes/project/bores')),
           },
-          { path: 'conflicts', element: page(() => import('./routes/project/conflicts')) },
+          {
+            path: 'conflicts',
+            loader: (args) => prefetch(args, (id) => [queryClient.prefetchQuery(conflictsQueryOptions(id))]),
+            element: page(() => import('./routes/project/conflicts')),
+          },
+          // One conflict: figures, workflow, assignment, history (issue 6).
+          { path: 'conflicts/:conflictId', element: page(() => import('./routes/project/conflict-detail')) },
           { path: 'stake-out', element: page(() => import('./routes/project/stake-out')) },
           { path: 'exports', element: page(() => import('./routes/project/exports')) },
           { path: 'activity', element: page(() => import('./routes/project/activity')) },
@@ -87,6 +114,8 @@ export const router = createBrowserRouter([
         ],
       },
       { path: 'users', element: page(() => import('./routes/users')) },
+      // Admin → Mail: the outbox and the development mail catcher (issue 6).
+      { path: 'mail', element: page(() => import('./routes/mail')) },
       { path: '*', element: <NotFound /> },
     ],
   },

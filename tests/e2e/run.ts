@@ -13,6 +13,7 @@ import { testConfig } from '../../server/config';
 import { openDatabase } from '../../server/db';
 import { seedDemo } from '../../server/seed/seeder';
 import { DiskStorage } from '../../server/storage/storage';
+import { startMail } from '../../server/modules/mail/mail-runtime';
 import { ensureChromium, launchBrowser } from './browser';
 import { JOURNEYS } from './journeys';
 
@@ -31,7 +32,10 @@ const config = testConfig({ dataDir, databasePath: join(dataDir, 'threadline.sql
 const orm = await openDatabase(config.databasePath);
 const storage = new DiskStorage(join(dataDir, 'files'));
 await seedDemo(orm.em, storage);
-const app = createApp({ orm, config, storage, clientDir });
+// Mail as in development: the built-in catcher on loopback and the outbox worker (Admin → Mail shows what it caught).
+const mail = await startMail({ ...config, mail: { ...config.mail, capture: true, workerIntervalSeconds: 1 } }, orm);
+mail.worker.start();
+const app = createApp({ orm, config, storage, clientDir, mail });
 const server = app.listen(0, '127.0.0.1');
 await new Promise<void>((resolve) => server.once('listening', () => resolve()));
 const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
@@ -71,6 +75,7 @@ try {
 } finally {
   await browser.close();
   server.close();
+  await mail.close();
   await orm.close();
   rmSync(dataDir, { recursive: true, force: true });
   rmSync(clientDir, { recursive: true, force: true });

@@ -54,6 +54,15 @@ const EXPECTED: Record<string, Role[] | typeof PUBLIC> = {
   'get /api/projects/:projectId/holes/:holeId/photos': ALL,
   'get /api/projects/:projectId/photos/:photoId/file': ALL,
   'get /api/projects/:projectId/photos/:photoId/thumbnail': ALL,
+  // test-hole register (issue 4): photos, per-hole activity, the sheet, survey imports
+  'get /api/projects/:projectId/photos/:photoId/original': ALL,
+  'post /api/projects/:projectId/holes/:holeId/photos': ['admin', 'designer', 'surveyor', 'field'],
+  'patch /api/projects/:projectId/photos/:photoId': ['admin', 'designer', 'surveyor', 'field'],
+  'delete /api/projects/:projectId/photos/:photoId': ['admin', 'designer', 'surveyor', 'field'],
+  'get /api/projects/:projectId/holes/:holeId/activity': ALL,
+  'get /api/projects/:projectId/holes/:holeId/sheet.pdf': ALL,
+  'post /api/projects/:projectId/survey-imports/preview': ['admin', 'surveyor'],
+  'post /api/projects/:projectId/survey-imports/commit': ['admin', 'surveyor'],
   'get /api/projects/:projectId/rules/': ALL,
   'post /api/projects/:projectId/rules/': ['admin', 'designer'],
   'patch /api/projects/:projectId/rules/:ruleId': ['admin', 'designer'],
@@ -61,7 +70,37 @@ const EXPECTED: Record<string, Role[] | typeof PUBLIC> = {
   'get /api/projects/:projectId/conflicts/': ALL,
   'patch /api/projects/:projectId/conflicts/:conflictId/status': ['admin', 'manager', 'designer'],
   'get /api/projects/:projectId/conflicts/:conflictId/history': ALL,
+  // conflict register, stake-out and mail (issue 6: items 1, 2, 4)
+  'get /api/projects/:projectId/conflicts/:conflictId': ALL,
+  'patch /api/projects/:projectId/conflicts/:conflictId': ['admin', 'manager', 'designer'],
+  'patch /api/projects/:projectId/conflicts/:conflictId/assignment': ['admin', 'manager'],
+  'post /api/projects/:projectId/conflicts/:conflictId/comments': ['admin', 'manager', 'designer', 'surveyor', 'field'],
+  'get /api/projects/:projectId/stakeout/': ALL,
+  'post /api/projects/:projectId/stakeout/marks': ['admin', 'surveyor'],
+  'delete /api/projects/:projectId/stakeout/marks/:markId': ['admin', 'surveyor'],
+  'post /api/projects/:projectId/mail/owners': ['admin', 'manager'],
+  'get /api/admin/mail/': ['admin'],
+  'get /api/admin/mail/captured/:capturedId': ['admin'],
+  'post /api/admin/mail/outbox/:outboxId/retry': ['admin'],
   'get /api/projects/:projectId/clearances/': ALL,
+  // exports for every role, line imports for those who edit lines (issue 6: items 3, 5)
+  'get /api/projects/:projectId/exports/': ALL,
+  'get /api/projects/:projectId/exports/conflicts.csv': ALL,
+  'get /api/projects/:projectId/exports/conflicts.xlsx': ALL,
+  'get /api/projects/:projectId/exports/conflicts.pdf': ALL,
+  'get /api/projects/:projectId/exports/stakeout.csv': ALL,
+  'get /api/projects/:projectId/exports/stakeout.dxf': ALL,
+  'get /api/projects/:projectId/exports/project.geojson': ALL,
+  'post /api/projects/:projectId/exports/bundle': ALL,
+  'get /api/projects/:projectId/exports/bundle/:jobId': ALL,
+  'get /api/projects/:projectId/exports/bundle/:jobId/download': ALL,
+  'post /api/projects/:projectId/imports/lines/preview': ['admin', 'designer'],
+  'post /api/projects/:projectId/imports/lines/commit': ['admin', 'designer'],
+  // base-map tiles: everyone on the project reads them; only an administrator uploads or removes (issue 5)
+  'get /api/projects/:projectId/tiles/': ALL,
+  'get /api/projects/:projectId/tiles/:z/:x/:y.png': ALL,
+  'post /api/projects/:projectId/tiles/': ['admin'],
+  'delete /api/projects/:projectId/tiles/': ['admin'],
 };
 
 let ctx: TestContext;
@@ -84,6 +123,12 @@ function fill(path: string, f: Fixtures, userId: number): string {
     .replace(':ruleId', String(f.rule.id))
     .replace(':photoId', String(f.photo.id))
     .replace(':conflictId', String(f.conflict.id))
+    // No stake mark, captured message or outbox message exists in a fresh fixture: allowed roles get 404.
+    .replace(':markId', '999999')
+    .replace(':capturedId', '999999')
+    .replace(':outboxId', '999999')
+    // Zip jobs live in memory per person: a made-up id answers 404 to allowed roles.
+    .replace(':jobId', 'no-such-job')
     .replace(':userId', String(userId));
 }
 

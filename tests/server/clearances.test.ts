@@ -132,7 +132,7 @@ describe('the register follows every write', () => {
     const base = `/api/projects/${f.project.id}`;
     const waived = await request(ctx.app)
       .patch(`${base}/conflicts/${f.conflict.id}/status`)
-      .set('Cookie', ctx.cookie('designer'))
+      .set('Cookie', ctx.cookie('manager')) // a waiver is recorded by the project manager (shared/conflicts.ts)
       .send({ status: 'waived', reason: 'Owner letter 2026-11-30 accepts the crossing with a sleeve.', version: f.conflict.version });
     expect(waived.status).toBe(200);
     // The designer lowers the bore by 3 ft: the line now clears by 1.9 ft.

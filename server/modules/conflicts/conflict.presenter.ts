@@ -1,6 +1,8 @@
 import type { ConflictDto } from '@shared/api';
 import type { Conflict } from './conflict.entity';
 
+const iso = (d: Date | null | undefined) => (d ? d.toISOString() : null);
+
 export function presentConflict(c: Conflict): ConflictDto {
   return {
     id: c.id,
@@ -16,5 +18,12 @@ export function presentConflict(c: Conflict): ConflictDto {
     version: c.version,
     createdAt: c.createdAt.toISOString(),
     updatedAt: c.updatedAt.toISOString(),
+    checkedAt: c.checkedAt.toISOString(),
+    statusSetByPerson: c.statusSetByPerson,
+    responsibleParty: c.responsibleParty ?? null,
+    ownerNotifiedAt: iso(c.ownerNotifiedAt),
+    answerDueAt: iso(c.answerDueAt),
+    closedAt: iso(c.closedAt),
+    notes: c.notes ?? null,
   };
 }

@@ -1,5 +1,5 @@
 import type { EntityManager } from '@mikro-orm/sqlite';
-import type { HoleDto, PhotoDto } from '@shared/api';
+import type { ActivityDto, HoleDto, PhotoDto } from '@shared/api';
 import { holeCreateSchema, holeReviewSchema, holeSurveySchema, holeUpdateSchema } from '@shared/schemas/hole';
 import type { AppConfig } from '../../config';
 import { AppError, badRequest, conflict, notFound } from '../../errors';
@@ -12,7 +12,12 @@ import type { Project } from '../projects/project.entity';
 import { User } from '../users/user.entity';
 import { presentHole, presentPhoto } from './hole.presenter';
 import { assertCanEdit, resolvePosition, statusAfterLogging } from './holes.service';
+import { ActivityEntry } from '../activity/activity-entry.entity';
 import { Photo } from './photo.entity';
+import { addPhotoRoutes } from './photos.routes';
+import { photoKeys } from './photos.service';
+import { addSheetRoutes } from './hole-sheet.routes';
+import { addSurveyImportRoutes } from './survey-import.routes';
 import { TestHole } from './test-hole.entity';
 
 async function photoCounts(em: EntityManager, holeIds: number[]): Promise<Map<number, number>> {
@@ -106,7 +111,7 @@ export function holeRoutes(registry: RouteMeta[], config: AppConfig, storage: Fi
   api.delete('/holes/:holeId', { access: 'hole.delete' }, async ({ em, project, user, params }) => {
     const hole = await findHole(em, project, params);
     assertCanEdit(user, hole);
-    const keys = (await em.find(Photo, { hole })).flatMap((p) => [p.fileKey, p.thumbnailKey]);
+    const keys = (await em.find(Photo, { hole })).flatMap(photoKeys);
     await deleteAudited({ em, project, user, entity: 'hole' , after: recompute(project, user) }, hole, (h) => presentHole(h));
     await Promise.all(keys.map((k) => storage.delete(k)));
   });
@@ -168,15 +173,66 @@ export function holeRoutes(registry: RouteMeta[], config: AppConfig, storage: Fi
     return (await em.find(Photo, { hole }, { orderBy: { id: 'asc' } })).map((p) => presentPhoto(p, project.id));
   });
 
-  for (const variant of ['file', 'thumbnail'] as const) {
+  // `file` is the upright copy for viewing, `thumbnail` the upright thumbnail, `original` the
+  // file exactly as uploaded. While the copies are being made (just after an upload), `file`
+  // and `thumbnail` answer 404 with code `photo_processing` and Retry-After; the client shows
+  // a placeholder and asks again (PhotoDto.state says the same).
+  for (const variant of ['file', 'thumbnail', 'original'] as const) {
     api.get(`/photos/:photoId/${variant}`, { access: 'project.read' }, async ({ em, project, params, res }) => {
-      const photo = await em.findOne(Photo, { id: idOf(params, 'photoId', 'Photo'), hole: { project } });
+      const photo = await em.findOne(Photo, { id: idOf(params, 'photoId', 'Photo'), hole: { project } }, { populate: ['hole'] });
       if (!photo) throw notFound('Photo');
-      const data = await storage.get(variant === 'file' ? photo.fileKey : photo.thumbnailKey);
+      let key: string;
+      let type: string;
+      if (variant === 'original' || (variant === 'file' && photo.state === 'failed')) {
+        key = photo.fileKey;
+        type = photo.mimeType;
+      } else if (photo.state === 'processing') {
+        res.set('Retry-After', '1').set('Cache-Control', 'no-store');
+        throw new AppError(404, 'photo_processing', 'The photo is still being prepared. Try again in a moment.');
+      } else if (variant === 'thumbnail') {
+        if (photo.state === 'failed') throw new AppError(404, 'photo_unreadable', 'This photo could not be decoded, so it has no thumbnail. Download the original.');
+        key = photo.thumbnailKey;
+        type = 'image/jpeg';
+      } else {
+        key = photo.displayKey ?? photo.fileKey;
+        type = key === photo.fileKey ? photo.mimeType : 'image/jpeg';
+      }
+      const data = await storage.get(key);
       if (!data) throw notFound('Photo file');
-      res.set('Cache-Control', 'private, max-age=86400, immutable').type(variant === 'file' ? photo.mimeType : 'image/jpeg').send(data);
+      res.set('Cache-Control', 'private, max-age=86400, immutable').type(type);
+      if (variant === 'original') {
+        const ext = photo.fileKey.slice(photo.fileKey.lastIndexOf('.') + 1);
+        const safeNumber = photo.hole.number.replace(/[^A-Za-z0-9._-]+/g, '_');
+        res.attachment(`${safeNumber}-photo-${photo.id}.${ext}`);
+      }
+      res.send(data);
     });
   }
+
+  addPhotoRoutes(api, config, storage);
+
+  api.get('/holes/:holeId/activity', { access: 'project.read' }, async ({ em, project, params }): Promise<ActivityDto[]> => {
+    const hole = await findHole(em, project, params);
+    const entries = await em.find(
+      ActivityEntry,
+      { project, entity: 'hole', entityId: hole.id },
+      { populate: ['user'], orderBy: { createdAt: 'desc', id: 'desc' }, limit: 500 },
+    );
+    return entries.map((a) => ({
+      id: a.id,
+      projectId: project.id,
+      userId: a.user?.id ?? null,
+      userName: a.user?.name ?? null,
+      entity: a.entity,
+      entityId: a.entityId,
+      action: a.action,
+      changes: a.changes,
+      at: a.createdAt.toISOString(),
+    }));
+  });
+
+  addSurveyImportRoutes(api);
+  addSheetRoutes(api, storage);
 
   return api;
 }

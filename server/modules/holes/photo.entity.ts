@@ -1,9 +1,19 @@
-import { Entity, ManyToOne, Property } from '@mikro-orm/core';
+import { Entity, Enum, ManyToOne, Property, DateTimeType } from '@mikro-orm/core';
 import { BaseEntity } from '../base.entity';
 import { User } from '../users/user.entity';
 import { TestHole } from './test-hole.entity';
 
-/** A photo of a test hole. Files live in storage under server-made keys, never client names. */
+export const PHOTO_STATES = ['processing', 'ready', 'failed'] as const;
+export type PhotoState = (typeof PHOTO_STATES)[number];
+export const PHOTO_SOURCES = ['exif', 'device'] as const;
+export type PhotoSource = (typeof PHOTO_SOURCES)[number];
+
+/**
+ * A photo of a test hole. Files live in storage under server-made keys, never client names:
+ * `fileKey` is the file exactly as uploaded, `displayKey` its upright copy for viewing (EXIF
+ * orientation applied to the pixels; the same key as `fileKey` when nothing needed changing) and
+ * `thumbnailKey` the upright thumbnail. The last two are made just after the upload answers.
+ */
 @Entity({ tableName: 'photos' })
 export class Photo extends BaseEntity {
   @ManyToOne({ entity: () => TestHole, deleteRule: 'cascade' })
@@ -30,7 +40,7 @@ export class Photo extends BaseEntity {
   @Property({ type: 'string', length: 300, nullable: true })
   caption: string | null = null;
 
-  @Property({ type: 'datetime', nullable: true })
+  @Property({ type: DateTimeType, nullable: true })
   takenAt: Date | null = null;
 
   @Property({ type: 'double', nullable: true })
@@ -38,6 +48,25 @@ export class Photo extends BaseEntity {
 
   @Property({ type: 'double', nullable: true })
   gpsLon: number | null = null;
+
+  /** Where takenAt came from: the photo's EXIF, or the device (the form) when EXIF had none. */
+  @Enum({ items: () => PHOTO_SOURCES, type: 'string', nullable: true })
+  takenAtSource: PhotoSource | null = null;
+
+  /** Where gpsLat/gpsLon came from. */
+  @Enum({ items: () => PHOTO_SOURCES, type: 'string', nullable: true })
+  gpsSource: PhotoSource | null = null;
+
+  /** Horizontal accuracy of a device fix in metres, as the device reported it. */
+  @Property({ type: 'double', nullable: true })
+  gpsAccuracy: number | null = null;
+
+  /** Upright copy for viewing; null until made (or for photos stored before it existed). */
+  @Property({ type: 'string', length: 200, nullable: true })
+  displayKey: string | null = null;
+
+  @Enum({ items: () => PHOTO_STATES, type: 'string', default: 'ready' })
+  state: PhotoState = 'ready';
 
   @ManyToOne({ entity: () => User, nullable: true, deleteRule: 'set null' })
   uploadedBy: User | null = null;

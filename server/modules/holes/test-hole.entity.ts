@@ -1,4 +1,4 @@
-import { Entity, Enum, Index, ManyToOne, Property, Unique } from '@mikro-orm/core';
+import { Entity, Enum, Index, ManyToOne, Property, Unique, DateTimeType } from '@mikro-orm/core';
 import {
   DEPTH_REFERENCES,
   EXCAVATION_METHODS,
@@ -116,7 +116,7 @@ export class TestHole extends VersionedEntity {
   @Property({ type: 'string', length: 120, nullable: true })
   crew: string | null = null;
 
-  @Property({ type: 'datetime', nullable: true })
+  @Property({ type: DateTimeType, nullable: true })
   dugAt: Date | null = null;
 
   @Property({ type: 'double', nullable: true })
@@ -137,6 +137,18 @@ export class TestHole extends VersionedEntity {
 
   @Property({ type: 'text', nullable: true })
   notes: string | null = null;
+
+  /** Soil seen in the excavation (test-hole sheet, SPEC §8). */
+  @Property({ type: 'string', length: 200, nullable: true })
+  soil: string | null = null;
+
+  /** Groundwater seen, or "none". */
+  @Property({ type: 'string', length: 200, nullable: true })
+  groundwater: string | null = null;
+
+  /** How the hole was backfilled and the surface restored. */
+  @Property({ type: 'string', length: 200, nullable: true })
+  restoration: string | null = null;
 
   @ManyToOne({ entity: () => User, nullable: true, deleteRule: 'set null' })
   createdBy: User | null = null;

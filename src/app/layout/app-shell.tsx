@@ -36,6 +36,11 @@ function Header({ user }: { user: UserDto }) {
               Users
             </NavLink>
           )}
+          {can(user.role, 'mail.admin') && (
+            <NavLink to="/mail" className={navClass}>
+              Mail
+            </NavLink>
+          )}
         </nav>
         <div className="ml-auto flex items-center gap-3">
           <div className="min-w-0 text-right leading-tight">

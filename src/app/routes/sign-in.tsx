@@ -4,9 +4,9 @@ import { useSession } from '@/features/auth/api/get-session';
 import { SignInForm } from '@/features/auth/components/sign-in-form';
 import { Logo } from '../layout/logo';
 
-/** Only local paths are followed after sign-in (no open redirect). */
+/** Only local paths are followed after sign-in (no open redirect); by default the landing page picks (routes/landing.tsx). */
 function safeNext(next: string | null): string {
-  return next && next.startsWith('/') && !next.startsWith('//') ? next : '/projects';
+  return next && next.startsWith('/') && !next.startsWith('//') ? next : '/';
 }
 
 /** Sign-in page; returns the user to where they were headed. */

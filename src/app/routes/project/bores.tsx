@@ -1,4 +1,7 @@
+import { can } from '@shared/permissions';
 import { SafetyCautions } from '@/components/safety-cautions';
+import { ButtonLink } from '@/components/ui/button';
+import { useSignedInUser } from '@/features/auth/api/get-session';
 import { ProblemAlert } from '@/components/ui/alert';
 import { EmptyState, Loading } from '@/components/ui/states';
 import { useBores } from '@/features/bores/api/get-bores';
@@ -11,6 +14,7 @@ export default function BoresTab() {
   const { project, units } = useWorkspace();
   const bores = useBores(project.id);
   const pits = usePits(project.id);
+  const canEdit = can(useSignedInUser().role, 'bore.write');
 
   let body;
   if (bores.isPending) body = <Loading label="Loading bores…" />;
@@ -22,7 +26,7 @@ export default function BoresTab() {
           A bore is a proposed crossing: its method, plan alignment, begin station, casing profile and pits. Clearances are computed from each bore to
           the lines around it.
         </p>
-        <p>Entering and editing bores (alignment, profile and pits, with live clearance figures) is not built yet.</p>
+        <p>Entering new bores (alignment and pits) is not built yet; a bore’s profile and casing can be edited with live clearances in Plan &amp; profile.</p>
       </EmptyState>
     );
   else
@@ -30,6 +34,20 @@ export default function BoresTab() {
       <>
         {pits.isError && <ProblemAlert error={pits.error} />}
         <BoreList bores={bores.data} pits={pits.data ?? []} ctx={units} />
+        {canEdit && (
+          <section className="rounded-lg border border-ink-200 bg-white p-4 text-sm" aria-label="Edit a bore profile">
+            <p className="mb-2 text-ink-700">
+              Change a bore’s profile, grade or casing with every clearance recomputed as you type or drag, in Plan &amp; profile:
+            </p>
+            <div className="flex flex-wrap gap-2">
+              {bores.data.map((b) => (
+                <ButtonLink key={b.id} variant="secondary" size="sm" to={`../plan?bore=${b.id}&edit=1`}>
+                  Edit {b.name} with live clearances
+                </ButtonLink>
+              ))}
+            </div>
+          </section>
+        )}
       </>
     );
 

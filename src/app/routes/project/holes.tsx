@@ -1,74 +1,109 @@
-import { useMemo, useState } from 'react';
-import { HOLE_STATUSES, type HoleStatus } from '@shared/domain';
+import { useMemo } from 'react';
+import { useLocation } from 'react-router-dom';
+import { can } from '@shared/permissions';
 import { SafetyCautions } from '@/components/safety-cautions';
-import { ProblemAlert } from '@/components/ui/alert';
+import { Alert, ProblemAlert } from '@/components/ui/alert';
+import { ButtonLink } from '@/components/ui/button';
 import { EmptyState, Loading } from '@/components/ui/states';
+import { useSignedInUser } from '@/features/auth/api/get-session';
 import { useBores } from '@/features/bores/api/get-bores';
+import { useClearances } from '@/features/holes/api/get-clearances';
 import { useHoles } from '@/features/holes/api/get-holes';
-import { HOLE_STATUS_LABELS, HolesTable, type HoleTableContext } from '@/features/holes/components/holes-table';
+import { HolesTable, toRows, type HoleTableContext } from '@/features/holes/components/holes-table';
+import { worstStatusByLine } from '@/features/holes/utils/labels';
 import { useLines } from '@/features/lines/api/get-lines';
-import { FilterChips } from '@/components/ui/filter-chips';
+import { formatDateTime } from '@/lib/format';
 import { useWorkspace } from './workspace-context';
 
-/** Test holes: the cautions, a status filter and the table. */
+/** Test holes: the register with filters, clearance status and CSV export; links to log a hole and to import survey shots. */
 export default function HolesTab() {
   const { project, units } = useWorkspace();
+  const user = useSignedInUser();
+  const location = useLocation();
   const holes = useHoles(project.id);
   const lines = useLines(project.id);
   const bores = useBores(project.id);
-  const [status, setStatus] = useState<HoleStatus | 'all'>('all');
+  const clearances = useClearances(project.id);
+  const deleted = (location.state as { deleted?: string } | null)?.deleted;
 
   const ctx: HoleTableContext = useMemo(
     () => ({
       ...units,
-      lines: new Map((lines.data ?? []).map((l) => [l.id, { label: l.label, kind: l.kind }])),
+      projectId: project.id,
+      lines: new Map((lines.data ?? []).map((l) => [l.id, { label: l.label, kind: l.kind, qualityLevel: l.qualityLevel }])),
       bores: new Map((bores.data ?? []).map((b) => [b.id, b.name])),
+      clearances: worstStatusByLine(clearances.data?.report),
+      clearancesKnown: clearances.isSuccess,
     }),
-    [units, lines.data, bores.data],
+    [units, project.id, lines.data, bores.data, clearances.data, clearances.isSuccess],
   );
+  const rows = useMemo(() => toRows(holes.data ?? [], ctx), [holes.data, ctx]);
+
+  const canLog = can(user.role, 'hole.create');
+  const canImport = can(user.role, 'hole.survey');
 
   let body;
   if (holes.isPending) body = <Loading label="Loading test holes…" />;
   else if (holes.isError) body = <ProblemAlert error={holes.error} />;
   else if (holes.data.length === 0)
     body = (
-      <EmptyState title="No test holes yet">
+      <EmptyState
+        title="No test holes yet"
+        action={
+          canLog ? (
+            <ButtonLink to="new" className="min-h-12">
+              Log the first test hole
+            </ButtonLink>
+          ) : undefined
+        }
+      >
         <p>
           A test hole (pothole) exposes a buried line so its depth, size and material can be measured and surveyed. Each hole records the line it
           exposes; an excavation exposing several lines gets one record per line under the same number.
         </p>
-        <p>Logging holes from a phone comes with the field logging form, which is not built yet.</p>
+        {!canLog && <p>Field crews and designers log holes; surveyors add their as-surveyed values.</p>}
       </EmptyState>
     );
-  else {
-    const counts = Object.fromEntries(HOLE_STATUSES.map((s) => [s, holes.data.filter((h) => h.status === s).length])) as Record<HoleStatus, number>;
-    const shown = status === 'all' ? holes.data : holes.data.filter((h) => h.status === status);
+  else
     body = (
       <div className="space-y-3">
-        <FilterChips
-          label="Filter by status"
-          value={status}
-          onChange={setStatus}
-          options={[{ value: 'all' as const, label: 'All', count: holes.data.length }, ...HOLE_STATUSES.map((s) => ({ value: s, label: HOLE_STATUS_LABELS[s], count: counts[s] }))]}
+        <HolesTable
+          rows={rows}
+          ctx={ctx}
+          frame={{
+            projectName: project.name,
+            crsCode: project.crsCode,
+            unit: project.unit,
+            verticalDatum: project.verticalDatum,
+            clearancesCheckedAt: clearances.data?.checkedAt ?? null,
+            total: rows.length,
+            fileStem: project.name.replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 40).toLowerCase() || 'project',
+          }}
         />
-        {shown.length === 0 ? (
-          <p className="rounded-md bg-white px-4 py-6 text-center text-sm text-ink-600">No holes are {HOLE_STATUS_LABELS[status as HoleStatus].toLowerCase()}.</p>
-        ) : (
-          <HolesTable holes={shown} ctx={ctx} />
-        )}
         <p className="text-xs text-ink-500">
-          Depths are below ground, to the reference shown. Elevations are in {project.verticalDatum}; a surveyed top of line wins over ground − depth.
+          Depths are below ground, to the reference shown. Elevations are in {project.verticalDatum}; a surveyed top of line wins over ground − depth and
+          is marked “surveyed”. Clearance status is the line’s worst against any bore
+          {clearances.data ? `, checked ${formatDateTime(clearances.data.checkedAt)}` : ''}.
         </p>
+        {clearances.isError && <p className="text-xs text-danger-700">The clearance report could not be loaded, so the clearance column is empty.</p>}
       </div>
     );
-  }
 
   return (
     <div className="space-y-4">
-      <div className="flex flex-wrap items-baseline justify-between gap-2">
+      <div className="flex flex-wrap items-center justify-between gap-2">
         <h2 className="text-lg font-semibold">Test holes</h2>
-        {lines.isError && <p className="text-sm text-danger-700">Line names could not be loaded; lines are shown by number.</p>}
+        <div className="flex flex-wrap gap-2">
+          {canImport && (
+            <ButtonLink to="import" variant="secondary">
+              Import survey shots
+            </ButtonLink>
+          )}
+          {canLog && <ButtonLink to="new">Log a test hole</ButtonLink>}
+        </div>
       </div>
+      {deleted && <Alert tone="success">Test hole {deleted} was deleted.</Alert>}
+      {lines.isError && <p className="text-sm text-danger-700">Line names could not be loaded; lines are shown by number.</p>}
       <SafetyCautions />
       {body}
     </div>

@@ -31,6 +31,14 @@ const ACTION_LABELS: Record<string, string> = {
   review: 'reviewed',
   add: 'added',
   remove: 'removed',
+  // Test-hole workflow and photos (issue 4).
+  'survey-import': 'imported survey shots onto',
+  accept: 'accepted and locked',
+  send_back: 'sent back',
+  reopen: 'reopened',
+  'photo-add': 'added photos to',
+  'photo-caption': 'changed a photo caption on',
+  'photo-delete': 'deleted a photo of',
 };
 
 /** `depthToTop` / `depth_to_top` → `depth to top`. */

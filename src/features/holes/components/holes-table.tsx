@@ -1,170 +1,542 @@
+import { useId, useMemo, useState } from 'react';
+import { Link } from 'react-router-dom';
+import {
+  columnFilteringFeature,
+  columnVisibilityFeature,
+  createColumnHelper,
+  createFilteredRowModel,
+  createSortedRowModel,
+  filterFn_equals,
+  filterFn_includesString,
+  globalFilteringFeature,
+  rowSortingFeature,
+  sortFn_alphanumeric,
+  sortFn_basic,
+  tableFeatures,
+  useTable,
+  type Row,
+} from '@tanstack/react-table';
 import type { HoleDto } from '@shared/api';
-import type { HoleStatus, LineKind, LinearUnit, StationStyle } from '@shared/domain';
+import { HOLE_STATUSES, LINE_KIND_LABELS, QUALITY_LEVELS, type HoleStatus, type LineKind, type LinearUnit, type QualityLevel, type StationStyle } from '@shared/domain';
+import { formatStation } from '@shared/geometry';
 import { UNIT_SYMBOLS } from '@shared/units';
 import { KindSwatch } from '@/components/kind-swatch';
-import { DataTable, type Column } from '@/components/ui/data-table';
+import { QualityLevelBadge } from '@/components/quality-level';
+import { Button } from '@/components/ui/button';
+import { cn } from '@/components/ui/cn';
+import { FilterChips } from '@/components/ui/filter-chips';
 import { Badge } from '@/components/ui/states';
-import { formatCoordinate, formatDateTime, formatLength, formatOffset, formatStation } from '@/lib/format';
+import { formatCoordinate, formatDateTime, formatLength, formatOffset } from '@/lib/format';
+import { holesCsv, type CsvFrame } from '../utils/holes-csv';
+import { CLEARANCE_LABELS, HOLE_STATUS_LABELS, REFERENCE_LABELS, SOURCE_LABELS, clearanceRank, type LineClearanceSummary } from '../utils/labels';
+import { ClearanceBadge, HoleStatusBadge } from './hole-status';
 
-export const HOLE_STATUS_LABELS: Record<HoleStatus, string> = {
-  planned: 'Planned',
-  dug: 'Dug',
-  surveyed: 'Surveyed',
-  reviewed: 'Reviewed',
-};
-
-const HOLE_STATUS_TONES: Record<HoleStatus, string> = {
-  planned: 'bg-ink-100 text-ink-700',
-  dug: 'bg-caution-100 text-caution-800',
-  surveyed: 'bg-brand-100 text-brand-800',
-  reviewed: 'bg-ok-100 text-ok-700',
-};
-
-export function HoleStatusBadge({ status }: { status: HoleStatus }) {
-  return <Badge className={HOLE_STATUS_TONES[status]}>{HOLE_STATUS_LABELS[status]}</Badge>;
+/** One table row: the hole with what the table shows and sorts by, worked out once. */
+export interface HoleRow {
+  hole: HoleDto;
+  number: string;
+  status: HoleStatus;
+  statusOrder: number;
+  lineId: number;
+  lineLabel: string;
+  lineKind: LineKind | null;
+  qualityLevel: QualityLevel | null;
+  clearance: LineClearanceSummary | null;
+  /** Rank of the clearance status for sorting (worst first); lines near no bore sort last. */
+  clearanceOrder: number | undefined;
+  ground: number | null;
+  groundSurveyed: boolean;
+  depth: number | null;
+  top: number | null;
+  topSource: 'surveyed' | 'ground − depth' | null;
+  boreName: string | null;
+  dugAt: string | null;
+  crew: string | null;
+  photos: number;
+  /** Text the search box looks through. */
+  search: string;
 }
 
-const SOURCE_LABELS = { grid: 'typed E/N', station: 'station/offset', gps: 'phone GPS', map: 'picked on map', survey: 'surveyed' } as const;
-
 export interface HoleTableContext {
+  projectId: number;
   unit: LinearUnit;
   datum: string;
   stationStyle: StationStyle;
-  lines: Map<number, { label: string; kind: LineKind }>;
+  lines: Map<number, { label: string; kind: LineKind; qualityLevel: QualityLevel }>;
   bores: Map<number, string>;
+  clearances: Map<number, LineClearanceSummary>;
+  /** False while the clearance report is loading or failed (the column says so). */
+  clearancesKnown: boolean;
 }
 
-function Position({ hole, ctx }: { hole: HoleDto; ctx: HoleTableContext }) {
+/** Top of line: the surveyed value wins; else ground − depth when the depth was taken to the top. */
+export function topOfLine(hole: HoleDto): { value: number; source: 'surveyed' | 'ground − depth' } | null {
+  if (hole.surveyedTopElevation != null) return { value: hole.surveyedTopElevation, source: 'surveyed' };
+  const ground = hole.surveyedGroundElevation ?? hole.groundElevation;
+  if (ground != null && hole.depthToTop != null && hole.depthReference === 'top') return { value: ground - hole.depthToTop, source: 'ground − depth' };
+  return null;
+}
+
+export function toRows(holes: readonly HoleDto[], ctx: HoleTableContext): HoleRow[] {
+  return holes.map((h) => {
+    const line = ctx.lines.get(h.lineId);
+    const top = topOfLine(h);
+    const clearance = ctx.clearances.get(h.lineId) ?? null;
+    return {
+      hole: h,
+      number: h.number,
+      status: h.status,
+      statusOrder: HOLE_STATUSES.indexOf(h.status),
+      lineId: h.lineId,
+      lineLabel: line?.label ?? `Line ${h.lineId}`,
+      lineKind: line?.kind ?? null,
+      qualityLevel: line?.qualityLevel ?? null,
+      clearance,
+      clearanceOrder: clearance ? clearanceRank(clearance.status) : undefined,
+      ground: h.surveyedGroundElevation ?? h.groundElevation,
+      groundSurveyed: h.surveyedGroundElevation != null,
+      depth: h.depthToTop,
+      top: top?.value ?? null,
+      topSource: top?.source ?? null,
+      boreName: h.boreId != null ? (ctx.bores.get(h.boreId) ?? `bore ${h.boreId}`) : null,
+      dugAt: h.dugAt,
+      crew: h.crew,
+      photos: h.photoCount,
+      search: [h.number, line?.label, line ? LINE_KIND_LABELS[line.kind] : '', h.crew, h.material, h.condition, h.ticketNumber, h.surfaceType, h.notes, HOLE_STATUS_LABELS[h.status]]
+        .filter(Boolean)
+        .join(' \u0001 ')
+        .toLowerCase(),
+    };
+  });
+}
+
+const features = tableFeatures({
+  rowSortingFeature,
+  columnFilteringFeature,
+  globalFilteringFeature,
+  columnVisibilityFeature,
+  sortedRowModel: createSortedRowModel(),
+  filteredRowModel: createFilteredRowModel(),
+  sortFns: { alphanumeric: sortFn_alphanumeric, basic: sortFn_basic },
+  filterFns: { equals: filterFn_equals, includesString: filterFn_includesString },
+});
+
+const helper = createColumnHelper<typeof features, HoleRow>();
+
+function Position({ row, ctx }: { row: HoleRow; ctx: HoleTableContext }) {
+  const hole = row.hole;
   const source = SOURCE_LABELS[hole.positionSource];
+  const surveyed =
+    hole.surveyedEasting != null && hole.surveyedNorthing != null ? (
+      <span className="text-xs text-brand-800" title={`Surveyed E ${formatCoordinate(hole.surveyedEasting, ctx.unit)}, N ${formatCoordinate(hole.surveyedNorthing, ctx.unit)}`}>
+        surveyed position on file
+      </span>
+    ) : null;
   const approx = hole.approximate ? (
-    <Badge className="ml-1 bg-caution-100 text-caution-800" title="Approximate position">
+    <Badge className="mt-0.5 bg-caution-100 text-caution-800" title="Approximate position (phone GPS)">
       approx.{hole.gpsAccuracy != null ? ` ±${formatLength(hole.gpsAccuracy, ctx.unit, 1)}` : ''}
     </Badge>
   ) : null;
   if (hole.station != null && hole.boreId != null) {
     return (
-      <span>
-        Sta. {formatStation(hole.station, ctx.stationStyle)}, {formatOffset(hole.offset, hole.offsetSide, ctx.unit)}
-        <span className="block text-xs text-ink-500">
-          on {ctx.bores.get(hole.boreId) ?? `bore ${hole.boreId}`} · {source}
+      <span className="inline-flex flex-col">
+        <span>
+          Sta. {formatStation(hole.station, ctx.stationStyle)}, {formatOffset(hole.offset, hole.offsetSide, ctx.unit)}
         </span>
+        <span className="text-xs text-ink-500">
+          on {row.boreName} · {source}
+        </span>
+        {surveyed}
         {approx}
       </span>
     );
   }
   return (
-    <span>
-      E {formatCoordinate(hole.easting, ctx.unit)}
-      <br />N {formatCoordinate(hole.northing, ctx.unit)}
-      <span className="block text-xs text-ink-500">{source}</span>
+    <span className="inline-flex flex-col">
+      <span>E {formatCoordinate(hole.easting, ctx.unit)}</span>
+      <span>N {formatCoordinate(hole.northing, ctx.unit)}</span>
+      <span className="text-xs text-ink-500">{source}</span>
+      {hole.positionSource !== 'survey' && surveyed}
       {approx}
     </span>
   );
 }
 
-const REFERENCE_LABELS = { top: 'to top', centre: 'to centre', bottom: 'to bottom' } as const;
-
-/** Top of line: the surveyed value wins; else ground − depth when the depth was taken to the top. */
-function topOfLine(hole: HoleDto, ctx: HoleTableContext) {
-  if (hole.surveyedTopElevation != null) {
-    return (
-      <span>
-        {formatLength(hole.surveyedTopElevation, ctx.unit)}
-        <span className="block text-xs text-ink-500">surveyed</span>
-      </span>
-    );
-  }
-  if (hole.groundElevation != null && hole.depthToTop != null && hole.depthReference === 'top') {
-    return (
-      <span>
-        {formatLength(hole.groundElevation - hole.depthToTop, ctx.unit)}
-        <span className="block text-xs text-ink-500">ground − depth</span>
-      </span>
-    );
-  }
-  return '—';
+function Sub({ children }: { children: React.ReactNode }) {
+  return <span className="block text-xs font-normal text-ink-500 normal-case">{children}</span>;
 }
 
-/** Test holes, read-only: number, line, status, position, elevations (with datum) and who dug when. */
-export function HolesTable({ holes, ctx }: { holes: HoleDto[]; ctx: HoleTableContext }) {
+function buildColumns(ctx: HoleTableContext) {
   const u = UNIT_SYMBOLS[ctx.unit];
-  const columns: Column<HoleDto>[] = [
-    { key: 'number', header: 'Hole', cell: (h) => h.number },
-    {
-      key: 'line',
+  return helper.columns([
+    helper.accessor('number', {
+      header: 'Hole',
+      sortFn: 'alphanumeric',
+      cell: (info) => (
+        <Link to={`/projects/${ctx.projectId}/holes/${info.row.original.hole.id}`} className="font-semibold text-brand-700 underline-offset-2 hover:underline">
+          {info.getValue()}
+        </Link>
+      ),
+    }),
+    helper.accessor('statusOrder', {
+      id: 'status',
+      header: 'Status',
+      sortFn: 'basic',
+      filterFn: (row: Row<typeof features, HoleRow>, _id: string, value: unknown) => value == null || row.original.status === value,
+      cell: (info) => <HoleStatusBadge status={info.row.original.status} />,
+    }),
+    helper.accessor('lineId', {
+      id: 'line',
       header: 'Line exposed',
-      wrap: true,
-      cell: (h) => {
-        const line = ctx.lines.get(h.lineId);
-        return line ? (
-          <span className="inline-flex flex-col">
-            <span className="font-medium">{line.label}</span>
-            <span className="text-xs text-ink-600">
-              <KindSwatch kind={line.kind} />
-            </span>
+      filterFn: 'equals',
+      sortFn: (a: Row<typeof features, HoleRow>, b: Row<typeof features, HoleRow>) => a.original.lineLabel.localeCompare(b.original.lineLabel),
+      cell: (info) => {
+        const r = info.row.original;
+        return (
+          <span className="inline-flex max-w-56 min-w-36 flex-col whitespace-normal">
+            <span className="font-medium">{r.lineLabel}</span>
+            {r.lineKind && (
+              <span className="text-xs text-ink-600">
+                <KindSwatch kind={r.lineKind} />
+              </span>
+            )}
           </span>
-        ) : (
-          `Line ${h.lineId}`
         );
       },
-    },
-    { key: 'status', header: 'Status', cell: (h) => <HoleStatusBadge status={h.status} /> },
-    { key: 'position', header: 'Position', cell: (h) => <Position hole={h} ctx={ctx} /> },
-    {
-      key: 'ground',
-      header: (
+    }),
+    helper.accessor('lineKind', { id: 'kind', header: 'Kind', filterFn: 'equals', enableHiding: true }),
+    helper.accessor('clearanceOrder', {
+      id: 'clearance',
+      header: () => (
+        <>
+          Clearance<Sub>line vs bore, worst</Sub>
+        </>
+      ),
+      sortFn: 'basic',
+      sortUndefined: 'last',
+      cell: (info) => {
+        const c = info.row.original.clearance;
+        if (!ctx.clearancesKnown) return <span className="text-xs text-ink-500">not available</span>;
+        if (!c) return <span className="text-xs text-ink-500" title="The line is not near any bore">near no bore</span>;
+        return <ClearanceBadge status={c.status} detail={c.bores.map((b) => `${b.name}: ${CLEARANCE_LABELS[b.status]}`).join('; ')} />;
+      },
+    }),
+    helper.accessor('qualityLevel', {
+      id: 'ql',
+      header: 'QL',
+      filterFn: 'equals',
+      sortUndefined: 'last',
+      cell: (info) => {
+        const ql = info.getValue();
+        return ql ? <QualityLevelBadge level={ql} /> : '—';
+      },
+    }),
+    helper.display({ id: 'position', header: () => <>Position<Sub>{u}</Sub></>, cell: (info) => <Position row={info.row.original} ctx={ctx} /> }),
+    helper.accessor('ground', {
+      header: () => (
         <>
           Ground elev.
-          <span className="block font-normal normal-case">
+          <Sub>
             {u}, {ctx.datum}
-          </span>
+          </Sub>
         </>
       ),
-      cell: (h) =>
-        h.surveyedGroundElevation != null ? (
+      sortFn: 'basic',
+      sortUndefined: 'last',
+      meta: { numeric: true },
+      cell: (info) => {
+        const r = info.row.original;
+        return r.ground == null ? '—' : (
           <span>
-            {formatLength(h.surveyedGroundElevation, ctx.unit)}
-            <span className="block text-xs text-ink-500">surveyed</span>
+            {formatLength(r.ground, ctx.unit)}
+            {r.groundSurveyed && <Sub>surveyed</Sub>}
           </span>
-        ) : (
-          formatLength(h.groundElevation, ctx.unit)
-        ),
-      numeric: true,
-    },
-    {
-      key: 'depth',
-      header: (
+        );
+      },
+    }),
+    helper.accessor('depth', {
+      header: () => (
         <>
-          Depth below ground<span className="block font-normal normal-case">{u}</span>
+          Depth<Sub>{u} below ground</Sub>
         </>
       ),
-      cell: (h) =>
-        h.depthToTop == null ? (
-          '—'
-        ) : (
+      sortFn: 'basic',
+      sortUndefined: 'last',
+      meta: { numeric: true },
+      cell: (info) => {
+        const h = info.row.original.hole;
+        return h.depthToTop == null ? '—' : (
           <span>
             {formatLength(h.depthToTop, ctx.unit)}
-            <span className="block text-xs text-ink-500">{REFERENCE_LABELS[h.depthReference]}</span>
+            <Sub>{REFERENCE_LABELS[h.depthReference]}</Sub>
           </span>
-        ),
-      numeric: true,
-    },
-    {
-      key: 'top',
-      header: (
+        );
+      },
+    }),
+    helper.accessor('top', {
+      header: () => (
         <>
           Top of line elev.
-          <span className="block font-normal normal-case">
+          <Sub>
             {u}, {ctx.datum}
-          </span>
+          </Sub>
         </>
       ),
-      cell: (h) => topOfLine(h, ctx),
-      numeric: true,
-    },
-    { key: 'crew', header: 'Crew', cell: (h) => h.crew ?? '—' },
-    { key: 'dug', header: 'Dug at', cell: (h) => formatDateTime(h.dugAt) },
-    { key: 'photos', header: 'Photos', cell: (h) => h.photoCount, numeric: true },
-  ];
-  return <DataTable caption="Test holes" columns={columns} rows={holes} rowKey={(h) => h.id} />;
+      sortFn: 'basic',
+      sortUndefined: 'last',
+      meta: { numeric: true },
+      cell: (info) => {
+        const r = info.row.original;
+        return r.top == null ? '—' : (
+          <span>
+            {formatLength(r.top, ctx.unit)}
+            <Sub>{r.topSource}</Sub>
+          </span>
+        );
+      },
+    }),
+    helper.accessor('crew', { header: 'Crew', sortFn: 'alphanumeric', sortUndefined: 'last', cell: (info) => <span className="inline-block max-w-48 min-w-32 whitespace-normal">{info.getValue() ?? '—'}</span> }),
+    helper.accessor('dugAt', { header: 'Dug at', sortFn: 'alphanumeric', sortUndefined: 'last', cell: (info) => formatDateTime(info.getValue()) }),
+    helper.accessor('photos', { header: 'Photos', sortFn: 'basic', meta: { numeric: true } }),
+    helper.accessor('search', { header: 'Search', filterFn: 'includesString' }),
+  ]);
 }
+
+const HIDDEN = { kind: false, search: false };
+
+export interface HolesTableProps {
+  rows: HoleRow[];
+  ctx: HoleTableContext;
+  frame: Omit<CsvFrame, 'exportedAt' | 'filters'>;
+}
+
+/**
+ * The test-hole register: sort by any column, filter by status, line, kind and quality level,
+ * search, see each line's clearance status, and export the rows shown as CSV.
+ */
+export function HolesTable({ rows, ctx, frame }: HolesTableProps) {
+  const columns = useMemo(() => buildColumns(ctx), [ctx]);
+  const [moreFilters, setMoreFilters] = useState(false);
+  const filtersId = useId();
+  const table = useTable({
+    features,
+    columns,
+    data: rows,
+    getRowId: (r) => String(r.hole.id),
+    initialState: { columnVisibility: HIDDEN, sorting: [{ id: 'number', desc: false }] },
+    globalFilterFn: 'includesString',
+    getColumnCanGlobalFilter: (column) => column.id === 'search',
+    enableSortingRemoval: false,
+  });
+
+  const filters = table.state.columnFilters;
+  const selectFilters = filters.filter((f) => f.id !== 'status').length;
+  const filterOf = (id: string) => filters.find((f) => f.id === id)?.value as string | number | undefined;
+  const search = (table.state.globalFilter as string | undefined) ?? '';
+  const shown = table.getRowModel().rows;
+  const anyFilter = filters.length > 0 || search !== '';
+
+  const status = (filterOf('status') as HoleStatus | undefined) ?? 'all';
+  const counts = Object.fromEntries(HOLE_STATUSES.map((s) => [s, rows.filter((r) => r.status === s).length])) as Record<HoleStatus, number>;
+  const lineOptions = useMemo(() => [...new Map(rows.map((r) => [r.lineId, r.lineLabel])).entries()].sort((a, b) => a[1].localeCompare(b[1])), [rows]);
+  const kindOptions = useMemo(() => [...new Set(rows.map((r) => r.lineKind).filter((k): k is LineKind => k != null))], [rows]);
+
+  /** The filters in force, in words, for the export header. */
+  function filterWords(): string {
+    const words: string[] = [];
+    if (status !== 'all') words.push(`status ${HOLE_STATUS_LABELS[status]}`);
+    const line = filterOf('line');
+    if (line != null) words.push(`line ${lineOptions.find(([id]) => id === Number(line))?.[1] ?? line}`);
+    const kind = filterOf('kind');
+    if (kind != null) words.push(`kind ${LINE_KIND_LABELS[kind as LineKind] ?? kind}`);
+    const ql = filterOf('ql');
+    if (ql != null) words.push(`quality level ${ql}`);
+    if (search) words.push(`search "${search}"`);
+    return words.length ? `filtered: ${words.join(', ')}` : '';
+  }
+
+  function exportCsv() {
+    const csv = holesCsv(
+      shown.map((r) => r.original),
+      { ...frame, exportedAt: new Date().toISOString(), filters: filterWords() },
+      { unit: ctx.unit, stationStyle: ctx.stationStyle },
+    );
+    const blob = new Blob([csv], { type: 'text/csv;charset=utf-8' });
+    const url = URL.createObjectURL(blob);
+    const a = document.createElement('a');
+    a.href = url;
+    a.download = `${frame.fileStem}-test-holes-${new Date().toISOString().slice(0, 10)}.csv`;
+    document.body.append(a);
+    a.click();
+    a.remove();
+    setTimeout(() => URL.revokeObjectURL(url), 10_000);
+  }
+
+  return (
+    <div className="space-y-3">
+      <FilterChips
+        label="Filter by status"
+        value={status}
+        onChange={(v) => table.getColumn('status')?.setFilterValue(v === 'all' ? undefined : v)}
+        options={[{ value: 'all' as const, label: 'All', count: rows.length }, ...HOLE_STATUSES.map((s) => ({ value: s, label: HOLE_STATUS_LABELS[s], count: counts[s] }))]}
+      />
+      <div className="grid grid-cols-[1fr_auto] gap-2 sm:grid-cols-[minmax(12rem,2fr)_repeat(3,minmax(8rem,1fr))] sm:items-end">
+        <label className="flex flex-col gap-1 text-sm font-medium text-ink-800">
+          Search holes
+          <input
+            type="search"
+            value={search}
+            onChange={(e) => table.setGlobalFilter(e.target.value)}
+            placeholder="Number, line, crew, material, ticket…"
+            className="min-h-11 rounded-md border border-ink-300 bg-white px-3 text-base font-normal sm:text-sm"
+          />
+        </label>
+        <Button
+          variant="secondary"
+          className="self-end sm:hidden"
+          aria-expanded={moreFilters}
+          aria-controls={filtersId}
+          onClick={() => setMoreFilters(!moreFilters)}
+        >
+          Filters{selectFilters > 0 ? ` (${selectFilters})` : ''}
+        </Button>
+        <div id={filtersId} className={cn('col-span-2 grid-cols-2 gap-2 sm:col-span-3 sm:grid sm:grid-cols-3', moreFilters ? 'grid' : 'hidden')}>
+          <FilterSelect label="Line" value={filterOf('line')} onChange={(v) => table.getColumn('line')?.setFilterValue(v == null ? undefined : Number(v))} className="col-span-2 sm:col-span-1">
+            {lineOptions.map(([id, label]) => (
+              <option key={id} value={id}>
+                {label}
+              </option>
+            ))}
+          </FilterSelect>
+          <FilterSelect label="Kind" value={filterOf('kind')} onChange={(v) => table.getColumn('kind')?.setFilterValue(v ?? undefined)}>
+            {kindOptions.map((k) => (
+              <option key={k} value={k}>
+                {LINE_KIND_LABELS[k]}
+              </option>
+            ))}
+          </FilterSelect>
+          <FilterSelect label="Quality level" value={filterOf('ql')} onChange={(v) => table.getColumn('ql')?.setFilterValue(v ?? undefined)}>
+            {QUALITY_LEVELS.map((q) => (
+              <option key={q} value={q}>
+                QL-{q}
+              </option>
+            ))}
+          </FilterSelect>
+        </div>
+      </div>
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <p className="text-sm text-ink-600" aria-live="polite">
+          Showing {shown.length} of {rows.length} {rows.length === 1 ? 'hole' : 'holes'}
+        </p>
+        <div className="flex flex-wrap gap-2">
+          {anyFilter && (
+            <Button
+              variant="ghost"
+              size="sm"
+              onClick={() => {
+                table.resetColumnFilters(true);
+                table.setGlobalFilter('');
+              }}
+            >
+              Clear filters
+            </Button>
+          )}
+          <Button variant="secondary" size="sm" onClick={exportCsv} disabled={shown.length === 0}>
+            Export CSV ({shown.length})
+          </Button>
+        </div>
+      </div>
+      {shown.length === 0 ? (
+        <p className="rounded-md border border-ink-200 bg-white px-4 py-6 text-center text-sm text-ink-600">No holes match these filters.</p>
+      ) : (
+        <div className="relative overflow-x-auto rounded-lg border border-ink-200 bg-white" tabIndex={0} role="region" aria-label="Test holes">
+          <table className="min-w-full border-collapse text-sm">
+            <caption className="sr-only">Test holes; column headers sort</caption>
+            <thead className="bg-ink-50 text-left text-xs font-semibold tracking-wide text-ink-600 uppercase">
+              {table.getHeaderGroups().map((group) => (
+                <tr key={group.id}>
+                  {group.headers.map((header, i) => {
+                    const numeric = (header.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric;
+                    const sorted = header.column.getIsSorted();
+                    return (
+                      <th
+                        key={header.id}
+                        scope="col"
+                        aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
+                        className={cn('border-b border-ink-200 px-3 py-2 align-bottom whitespace-nowrap', numeric && 'text-right', i === 0 && 'sticky left-0 z-10 bg-ink-50')}
+                      >
+                        {header.column.getCanSort() ? (
+                          <button
+                            type="button"
+                            onClick={header.column.getToggleSortingHandler()}
+                            className={cn('inline-flex min-h-8 items-end gap-1 text-left uppercase hover:text-ink-900', numeric && 'flex-row-reverse text-right')}
+                          >
+                            <span>
+                              <table.FlexRender header={header} />
+                            </span>
+                            <span aria-hidden className="text-ink-400">
+                              {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}
+                            </span>
+                          </button>
+                        ) : (
+                          <table.FlexRender header={header} />
+                        )}
+                      </th>
+                    );
+                  })}
+                </tr>
+              ))}
+            </thead>
+            <tbody>
+              {shown.map((row) => (
+                <tr key={row.id} className="group border-b border-ink-100 last:border-b-0">
+                  {row.getVisibleCells().map((cell, i) => {
+                    const numeric = (cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric;
+                    return i === 0 ? (
+                      <th key={cell.id} scope="row" className="sticky left-0 z-10 bg-white px-3 py-2.5 text-left align-top whitespace-nowrap group-hover:bg-ink-50">
+                        <table.FlexRender cell={cell} />
+                      </th>
+                    ) : (
+                      <td key={cell.id} className={cn('px-3 py-2.5 align-top whitespace-nowrap group-hover:bg-ink-50', numeric && 'text-right tabular')}>
+                        <table.FlexRender cell={cell} />
+                      </td>
+                    );
+                  })}
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </div>
+  );
+}
+
+function FilterSelect({
+  label,
+  value,
+  onChange,
+  children,
+  className,
+}: {
+  label: string;
+  value: string | number | undefined;
+  onChange: (value: string | null) => void;
+  children: React.ReactNode;
+  className?: string;
+}) {
+  return (
+    <label className={cn('flex min-w-0 flex-col gap-1 text-sm font-medium text-ink-800', className)}>
+      {label}
+      <select
+        value={value == null ? '' : String(value)}
+        onChange={(e) => onChange(e.target.value === '' ? null : e.target.value)}
+        className="min-h-11 w-full min-w-0 rounded-md border border-ink-300 bg-white px-2 text-base font-normal sm:text-sm"
+      >
+        <option value="">All</option>
+        {children}
+      </select>
+    </label>
+  );
+}
+

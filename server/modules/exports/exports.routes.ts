@@ -1,0 +1,153 @@
+import type { Response } from 'express';
+import type { ExportJobDto, ExportSummaryDto } from '@shared/api';
+import {
+  bundleRequestSchema,
+  conflictExportQuerySchema,
+  geojsonExportQuerySchema,
+  stakeoutExportQuerySchema,
+} from '@shared/schemas/export';
+import type { AppConfig } from '../../config';
+import { AppError, notFound } from '../../errors';
+import { ApiRouter, type RouteMeta } from '../../http/api-router';
+import type { FileStorage } from '../../storage/storage';
+import { buildBundle } from './bundle';
+import { BundleJobs, presentJob } from './bundle-jobs';
+import { loadHoleSheet, renderHoleSheets } from '../holes/hole-sheet';
+import { TestHole } from '../holes/test-hole.entity';
+import { Project } from '../projects/project.entity';
+import { conflictCsv, conflictPdf, conflictXlsx, rowsLine } from './conflict-list';
+import { describeFilter, loadExportData, matchesFilter, type ConflictFilterInput, type ProjectExportData } from './export-data';
+import { exportFileName, isoSeconds } from './export-header';
+import { projectGeojson } from './geojson';
+import { stakeoutCsv, stakeoutDxf, stakeoutPoints } from './stakeout';
+
+/** Send a file for download (never cached: every export recomputes its clearances). */
+function sendFile(res: Response, body: string | Buffer, contentType: string, fileName: string): void {
+  res.setHeader('Content-Type', contentType);
+  res.setHeader('Content-Disposition', `attachment; filename="${fileName}"`);
+  res.setHeader('Cache-Control', 'no-store');
+  res.send(typeof body === 'string' ? Buffer.from(body, 'utf8') : body);
+}
+
+function conflictRows(data: ProjectExportData, filter: ConflictFilterInput) {
+  const rows = data.conflicts.filter((r) => matchesFilter(r, filter));
+  const users = new Map(data.conflicts.filter((r) => r.assigneeId != null).map((r) => [r.assigneeId!, r.assigneeName ?? '']));
+  return { rows, info: rowsLine(rows.length, data.conflicts.length, describeFilter(filter, data, users)) };
+}
+
+/**
+ * Exports for every role (access `export.read`): the conflict list as CSV, XLSX and PDF, the
+ * stake-out list as a point file and as DXF, GeoJSON in WGS 84, and the project zip prepared as a
+ * job with progress. Every export recomputes the clearances and states that time, the CRS, the
+ * unit and the vertical datum in its header.
+ */
+export function exportRoutes(registry: RouteMeta[], config: AppConfig, storage: FileStorage): ApiRouter {
+  const api = new ApiRouter('/api/projects/:projectId/exports', registry, config);
+  const jobs = new BundleJobs();
+  const base = (projectId: number) => `/api/projects/${projectId}/exports`;
+
+  api.get('/', { access: 'export.read' }, async ({ em, project, user }): Promise<ExportSummaryDto> => {
+    const data = await loadExportData(em, project, user);
+    const points = stakeoutPoints(data);
+    return {
+      checkedAt: data.frame.checkedAt.toISOString(),
+      crsCode: data.frame.crsCode,
+      crsName: data.frame.crsName,
+      unit: data.frame.unit,
+      verticalDatum: data.frame.verticalDatum,
+      counts: {
+        conflicts: data.conflicts.length,
+        lines: data.lines.length,
+        holes: data.holes.length,
+        bores: data.bores.length,
+        photos: data.photos.length,
+        crossings: points.filter((p) => p.set === 'crossings').length,
+        suggested: points.filter((p) => p.set === 'suggested').length,
+      },
+      holeSheets: 'pdf',
+    };
+  });
+
+  api.get('/conflicts.csv', { access: 'export.read', query: conflictExportQuerySchema }, async ({ em, project, user, query, res }) => {
+    const data = await loadExportData(em, project, user);
+    const { ids, ...filter } = query;
+    const { rows, info } = conflictRows(data, filter);
+    sendFile(res, conflictCsv(data.frame, rows, info, ids ?? 'plain'), 'text/csv; charset=utf-8', exportFileName(data.frame, 'conflicts', 'csv'));
+  });
+
+  api.get('/conflicts.xlsx', { access: 'export.read', query: conflictExportQuerySchema }, async ({ em, project, user, query, res }) => {
+    const data = await loadExportData(em, project, user);
+    const { ids: _ids, ...filter } = query;
+    const { rows, info } = conflictRows(data, filter);
+    sendFile(res, await conflictXlsx(data.frame, rows, info), 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet', exportFileName(data.frame, 'conflicts', 'xlsx'));
+  });
+
+  api.get('/conflicts.pdf', { access: 'export.read', query: conflictExportQuerySchema }, async ({ em, project, user, query, res }) => {
+    const data = await loadExportData(em, project, user);
+    const { ids: _ids, ...filter } = query;
+    const { rows, info } = conflictRows(data, filter);
+    sendFile(res, await conflictPdf(data.frame, rows, info), 'application/pdf', exportFileName(data.frame, 'conflicts', 'pdf'));
+  });
+
+  api.get('/stakeout.csv', { access: 'export.read', query: stakeoutExportQuerySchema }, async ({ em, project, user, query, res }) => {
+    const data = await loadExportData(em, project, user);
+    const points = stakeoutPoints(data, query);
+    sendFile(res, stakeoutCsv(data, points, query), 'text/csv; charset=utf-8', exportFileName(data.frame, 'stakeout-points', 'csv'));
+  });
+
+  api.get('/stakeout.dxf', { access: 'export.read', query: stakeoutExportQuerySchema }, async ({ em, project, user, query, res }) => {
+    const data = await loadExportData(em, project, user);
+    const points = stakeoutPoints(data, query);
+    sendFile(res, stakeoutDxf(data, points, query), 'image/vnd.dxf', exportFileName(data.frame, 'stakeout', 'dxf'));
+  });
+
+  api.get('/project.geojson', { access: 'export.read', query: geojsonExportQuerySchema }, async ({ em, project, user, query, res }) => {
+    const data = await loadExportData(em, project, user);
+    sendFile(res, JSON.stringify(projectGeojson(data, query), null, 1), 'application/geo+json', exportFileName(data.frame, 'project', 'geojson'));
+  });
+
+  // The zip: POST starts it (the data is read now, the files are made after the answer),
+  // GET follows its progress, GET …/download fetches it with its length known.
+  api.post('/bundle', { access: 'export.read', body: bundleRequestSchema }, async ({ em, project, user, body, req, status }): Promise<ExportJobDto> => {
+    const data = await loadExportData(em, project, user);
+    const fileName = exportFileName(data.frame, 'export', 'zip');
+    // The sheets are drawn by the test-hole sheet builder while the job runs, reading through an
+    // entity manager of the job's own (the request's is done by then).
+    const jobEm = em.fork();
+    let sheetProject: Project | null = null;
+    const sheet = async (holeId: number) => {
+      sheetProject ??= await jobEm.findOneOrFail(Project, project.id);
+      const hole = await jobEm.findOneOrFail(TestHole, { id: holeId, project: sheetProject }, { populate: ['line', 'bore', 'createdBy'] });
+      try {
+        return await renderHoleSheets([await loadHoleSheet(jobEm, sheetProject, hole, storage)]);
+      } catch (err) {
+        req.log?.warn({ err, holeId }, 'test-hole sheet for the zip failed; the README lists it');
+        throw err;
+      }
+    };
+    const job = jobs.start(
+      { projectId: project.id, userId: user.id },
+      fileName,
+      (report) => buildBundle(data, storage, { filter: body.filter ?? {}, photos: body.photos ?? true, sheet }, report),
+      (err) => req.log?.error({ err, checkedAt: isoSeconds(data.frame.checkedAt) }, 'export zip failed'),
+    );
+    status(202);
+    return presentJob(job, base(project.id));
+  });
+
+  api.get('/bundle/:jobId', { access: 'export.read' }, ({ project, user, params }): ExportJobDto => {
+    const job = jobs.get(String(params.jobId), { projectId: project.id, userId: user.id });
+    if (!job) throw notFound('Export');
+    return presentJob(job, base(project.id));
+  });
+
+  api.get('/bundle/:jobId/download', { access: 'export.read' }, ({ project, user, params, res }) => {
+    const job = jobs.get(String(params.jobId), { projectId: project.id, userId: user.id });
+    if (!job) throw notFound('Export');
+    if (job.state === 'failed') throw new AppError(409, 'export_failed', job.error ?? 'The zip could not be made.');
+    if (job.state !== 'done' || !job.file) throw new AppError(409, 'export_not_ready', 'The zip is still being prepared. Wait until it is ready.');
+    sendFile(res, job.file, 'application/zip', job.fileName);
+  });
+
+  return api;
+}

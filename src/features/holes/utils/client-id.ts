@@ -1,0 +1,13 @@
+/**
+ * A random UUID (version 4) for a record made on this device. `crypto.randomUUID` exists only in
+ * secure contexts (https or localhost); phones on a site network often open plain http, so the
+ * fallback builds the same thing from `crypto.getRandomValues`, which every browser offers.
+ */
+export function newClientId(): string {
+  if (typeof crypto.randomUUID === 'function') return crypto.randomUUID();
+  const b = crypto.getRandomValues(new Uint8Array(16));
+  b[6] = (b[6]! & 0x0f) | 0x40; // version 4
+  b[8] = (b[8]! & 0x3f) | 0x80; // RFC 4122 variant
+  const hex = Array.from(b, (x) => x.toString(16).padStart(2, '0')).join('');
+  return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-${hex.slice(12, 16)}-${hex.slice(16, 20)}-${hex.slice(20)}`;
+}
