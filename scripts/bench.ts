@@ -5,10 +5,12 @@
  */
 import { printEngineBench } from './bench-engine';
 import { printMapBench } from './bench-map';
+import { printApiBench } from './bench-api';
 
 const BENCHES: { name: string; run: () => Promise<void> | void }[] = [
   { name: 'clearance engine', run: printEngineBench },
   { name: 'plan & profile map (headless Chromium)', run: printMapBench },
+  { name: 'API under load (10 clients, loopback)', run: printApiBench },
 ];
 
 for (const bench of BENCHES) {

@@ -1,7 +1,34 @@
 import { cpSync, existsSync, mkdirSync } from 'node:fs';
 import { join } from 'node:path';
+import sqlite3 from 'sqlite3';
 import { MikroORM } from '@mikro-orm/sqlite';
 import { ormConfig } from './mikro-orm.config';
+
+/** The parts of node-sqlite3's backup object we use (its type declarations omit it). */
+interface SqliteBackup {
+  step(pages: number, callback: (err: Error | null) => void): void;
+  finish(callback?: (err: Error | null) => void): void;
+  readonly completed: boolean;
+  readonly failed: boolean;
+}
+
+/** Copy a live database with SQLite's online backup API, a batch of pages at a time. */
+async function onlineCopy(source: string, target: string): Promise<void> {
+  const db = await new Promise<sqlite3.Database>((resolve, reject) => {
+    const handle = new sqlite3.Database(source, sqlite3.OPEN_READONLY, (err) => (err ? reject(err) : resolve(handle)));
+  });
+  try {
+    const backup = (db as unknown as { backup(file: string): SqliteBackup }).backup(target);
+    // Small steps let writers go on between them; SQLite restarts the copy if a write lands mid-way.
+    while (!backup.completed && !backup.failed) {
+      await new Promise<void>((resolve, reject) => backup.step(256, (err) => (err ? reject(err) : resolve())));
+    }
+    await new Promise<void>((resolve) => backup.finish(() => resolve()));
+    if (backup.failed) throw new Error('the SQLite backup failed');
+  } finally {
+    await new Promise<void>((resolve) => db.close(() => resolve()));
+  }
+}
 
 export interface BackupResult {
   databaseCopy: string;
@@ -9,20 +36,14 @@ export interface BackupResult {
 }
 
 /**
- * Online backup: a consistent copy of the database made with SQLite's `VACUUM INTO` while
- * other connections keep writing (WAL mode), checked with `integrity_check`, plus the files.
+ * Online backup: a consistent copy of the database made with SQLite's backup API while other
+ * connections keep writing (WAL mode), checked with `integrity_check`, plus the files.
  */
 export async function backupDatabase(databasePath: string, filesDir: string | null, targetDir: string): Promise<BackupResult> {
   mkdirSync(targetDir, { recursive: true });
   const databaseCopy = join(targetDir, 'threadline.sqlite');
   if (existsSync(databaseCopy)) throw new Error(`${databaseCopy} already exists`);
-  const source = await MikroORM.init(ormConfig(databasePath));
-  try {
-    await source.em.getConnection().execute('pragma busy_timeout = 5000');
-    await source.em.getConnection().execute(`vacuum into '${databaseCopy.replace(/'/g, "''")}'`);
-  } finally {
-    await source.close();
-  }
+  await onlineCopy(databasePath, databaseCopy);
   const copy = await MikroORM.init(ormConfig(databaseCopy));
   try {
     const [check] = await copy.em.getConnection().execute<{ integrity_check: string }[]>('pragma integrity_check');

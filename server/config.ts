@@ -29,6 +29,8 @@ const envSchema = z.object({
   PHOTO_MAX_MB: z.coerce.number().positive().max(200).default(15),
   /** Largest photo accepted, in megapixels (decoded size is checked from the header first). */
   PHOTO_MAX_MEGAPIXELS: z.coerce.number().positive().max(500).default(50),
+  /** Photo uploads read at once; more wait their turn with their bodies unread. */
+  PHOTO_UPLOAD_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(4),
 });
 
 /** Where uploaded files are kept. */
@@ -56,6 +58,7 @@ export interface AppConfig {
   /** Upload limits for photos: bytes per file and decoded pixels per image. */
   photoMaxBytes: number;
   photoMaxPixels: number;
+  photoUploadConcurrency: number;
 }
 
 export class ConfigError extends Error {}
@@ -96,6 +99,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     storage: storageConfig(e),
     photoMaxBytes: Math.round(e.PHOTO_MAX_MB * 1024 * 1024),
     photoMaxPixels: Math.round(e.PHOTO_MAX_MEGAPIXELS * 1_000_000),
+    photoUploadConcurrency: e.PHOTO_UPLOAD_CONCURRENCY,
   };
 }
 
@@ -151,6 +155,7 @@ export function testConfig(overrides: Partial<AppConfig> = {}): AppConfig {
     storage: { kind: 'disk' },
     photoMaxBytes: 15 * 1024 * 1024,
     photoMaxPixels: 50_000_000,
+    photoUploadConcurrency: 4,
     ...overrides,
   };
 }

@@ -44,6 +44,9 @@ export async function startServer(dataDir: string, port: number): Promise<Server
     env: { ...process.env, DATA_DIR: dataDir, PORT: String(port), HOST: '127.0.0.1', LOG_LEVEL: 'warn', SEED_DEMO: 'false', NODE_ENV: 'development' },
     stdio: ['ignore', 'ignore', 'inherit'],
   });
+  child.on('exit', (code, signal) => {
+    if (code !== 0 && signal !== 'SIGKILL' && signal !== 'SIGTERM') console.error(`server exited: code ${code}, signal ${signal}`);
+  });
   const url = `http://127.0.0.1:${port}`;
   const deadline = Date.now() + 30_000;
   while (Date.now() < deadline) {
@@ -74,6 +77,11 @@ export async function stopServer(server: ServerHandle, signal: NodeJS.Signals = 
 export class Client {
   private cookie = '';
   constructor(private readonly url: string) {}
+
+  /** The session cookie, for requests built by hand (multipart uploads). */
+  get sessionCookie(): string {
+    return this.cookie;
+  }
 
   async signIn(role: string): Promise<void> {
     const user = DEMO_USERS.find((u) => u.role === role && u.active !== false)!;

@@ -1,6 +1,7 @@
 import type { Request, Response } from 'express';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import multer, { MulterError } from 'multer';
+import pLimit from 'p-limit';
 import type { Logger } from 'pino';
 import type { PhotoDto } from '@shared/api';
 import { photoUpdateSchema, photoUploadFieldsSchema } from '@shared/schemas/photo';
@@ -105,28 +106,35 @@ function refs(em: EntityManager, projectId: number, userId: number): { project: 
 
 /** Photo upload, caption edit and removal (mounted on the holes router). */
 export function addPhotoRoutes(api: ApiRouter, config: AppConfig, storage: FileStorage): void {
+  // Uploads are read into memory, so only a few are read at once; the rest wait with their
+  // bodies unread (TCP back-pressure), which bounds memory however many phones send at once.
+  const uploadSlots = pLimit(config.photoUploadConcurrency);
   api.post('/holes/:holeId/photos', { access: 'photo.upload' }, async ({ em, project, user, params, req, res, status }): Promise<PhotoDto[]> => {
     // Who may add photos is settled before a byte of the upload is read.
     const hole = await em.findOne(TestHole, { id: idOf(params, 'holeId', 'Test hole'), project });
     if (!hole) throw notFound('Test hole');
     assertCanUpload(user, hole);
-    await parseMultipart(req, res, config);
-    const files = (req.files as Express.Multer.File[] | undefined) ?? [];
-    if (files.length === 0) {
-      throw badRequest('Choose at least one photo.', [{ path: 'photos', message: 'no photo was sent (multipart/form-data, field "photos")' }]);
-    }
-    const fields = photoUploadFieldsSchema.safeParse({ ...(req.body as Record<string, unknown> | undefined) });
-    if (!fields.success) throw new AppError(400, 'validation', 'Some fields are not valid.', { errors: zodProblemErrors(fields.error) });
-    const dtos = await receivePhotos({
-      em,
-      storage,
-      project,
-      user,
-      hole,
-      files,
-      fields: fields.data,
-      maxPixels: config.photoMaxPixels,
-      logger: req.log as Logger,
+    const dtos = await uploadSlots(async () => {
+      await parseMultipart(req, res, config);
+      const files = (req.files as Express.Multer.File[] | undefined) ?? [];
+      if (files.length === 0) {
+        throw badRequest('Choose at least one photo.', [{ path: 'photos', message: 'no photo was sent (multipart/form-data, field "photos")' }]);
+      }
+      const fields = photoUploadFieldsSchema.safeParse({ ...(req.body as Record<string, unknown> | undefined) });
+      if (!fields.success) throw new AppError(400, 'validation', 'Some fields are not valid.', { errors: zodProblemErrors(fields.error) });
+      const received = await receivePhotos({
+        em,
+        storage,
+        project,
+        user,
+        hole,
+        files,
+        fields: fields.data,
+        maxPixels: config.photoMaxPixels,
+        logger: req.log as Logger,
+      });
+      req.files = undefined; // let the bodies go before the next upload is read
+      return received;
     });
     status(201);
     return dtos;

@@ -5,5 +5,9 @@ import { FOUNDATION_JOURNEYS } from './foundation';
 import { PLAN_PROFILE_JOURNEYS } from './plan-profile';
 import type { Journey } from './support';
 
-/** Every browser journey, in order. Add a feature's journeys module here. */
-export const JOURNEYS: Journey[] = [...FOUNDATION_JOURNEYS, ...FIELD_REGISTER_JOURNEYS, ...PLAN_PROFILE_JOURNEYS, ...CONFLICT_JOURNEYS, ...EXPORT_JOURNEYS];
+/**
+ * Every browser journey, in order. They share one seeded database: journeys that only look
+ * (or put back what they change) come first; journeys that add records (new holes and lines)
+ * come last, so counts checked against the demo scenario still hold.
+ */
+export const JOURNEYS: Journey[] = [...FOUNDATION_JOURNEYS, ...PLAN_PROFILE_JOURNEYS, ...CONFLICT_JOURNEYS, ...FIELD_REGISTER_JOURNEYS, ...EXPORT_JOURNEYS];

@@ -5,6 +5,8 @@
  */
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
+import proj4 from 'proj4';
+import { SphericalMercator } from '@mapbox/sphericalmercator';
 import { PDFParse } from 'pdf-parse';
 import { DEMO_SCENARIOS, ROAD_BORE_SCENARIO } from '../../../seeds/demo';
 import { check, signIn, SIGNED_OUT_PROBE, type Journey } from './support';
@@ -62,6 +64,17 @@ export const PLAN_PROFILE_JOURNEYS: Journey[] = [
         );
         check(images.length > 0, `${s.key}: no base-map tile was shown`);
         check(images.every((i) => i.w === 256 && i.src.startsWith(baseUrl)), `${s.key}: a tile is not a 256-px image from this server`);
+        // Leaflet's tile for the bore's first point is the one @mapbox/sphericalmercator (a reference
+        // Web Mercator library) gives for that point, converted to lon/lat by proj4 on its own
+        const addresses = images.map((i) => /\/tiles\/(\d+)\/(\d+)\/(\d+)\.png/.exec(i.src)!.slice(1).map(Number) as [number, number, number]);
+        const z = addresses[0]![0];
+        const start = s.bores[0]!.alignment[0]!;
+        const [lon, lat] = proj4(s.project.crsProj4, 'WGS84').forward([start[0], start[1]]);
+        const expected = new SphericalMercator({ size: 256 }).xyz([lon, lat, lon, lat], z);
+        check(
+          addresses.some(([tz, tx, ty]) => tz === z && tx === expected.minX && ty === expected.minY),
+          `${s.key}: the tile ${z}/${expected.minX}/${expected.minY} holding the bore's first point is not on the map (${addresses.map((a) => a.join('/')).join(', ')})`,
+        );
         await page.getByTestId('plan-legend').first().waitFor();
         await page.getByText(/Vertical exaggeration \d/).first().waitFor();
         await page.screenshot({ path: join(shots, `plan-${s.key}-desktop.png`), fullPage: true });
