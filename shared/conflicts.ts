@@ -90,8 +90,21 @@ export interface ConflictFilter {
   q?: string;
 }
 
-/** True when a register row passes the filter. */
-export function matchesConflictFilter(row: ConflictRowDto, filter: ConflictFilter): boolean {
+/** What the filter reads of a conflict: the register's rows and the export rows both have it. */
+export interface FilterableConflict {
+  number: string;
+  status: ConflictStatus;
+  computedStatus: ClearanceStatus;
+  boreId: number;
+  boreName: string;
+  line: { kind: LineKind; label: string; owner: string };
+  assigneeId: number | null;
+  assigneeName: string | null;
+  responsibleParty: string | null;
+}
+
+/** True when a conflict passes the filter (the one rule for the screen and the exports). */
+export function matchesFilterable(row: FilterableConflict, filter: ConflictFilter): boolean {
   if (filter.status?.length && !filter.status.includes(row.status)) return false;
   if (filter.computedStatus?.length && !filter.computedStatus.includes(row.computedStatus)) return false;
   if (filter.boreId?.length && !filter.boreId.includes(row.boreId)) return false;
@@ -99,8 +112,13 @@ export function matchesConflictFilter(row: ConflictRowDto, filter: ConflictFilte
   if (filter.assignee?.length && !filter.assignee.includes(row.assigneeId ?? 'none')) return false;
   const q = filter.q?.trim().toLowerCase();
   if (q) {
-    const hay = [row.number, row.line.label, row.line.owner, row.bore.name, row.assigneeName ?? '', row.responsibleParty ?? ''].join(' ').toLowerCase();
+    const hay = [row.number, row.line.label, row.line.owner, row.boreName, row.assigneeName ?? '', row.responsibleParty ?? ''].join(' ').toLowerCase();
     if (!hay.includes(q)) return false;
   }
   return true;
+}
+
+/** True when a register row passes the filter. */
+export function matchesConflictFilter(row: ConflictRowDto, filter: ConflictFilter): boolean {
+  return matchesFilterable({ ...row, boreName: row.bore.name }, filter);
 }

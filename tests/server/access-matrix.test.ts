@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { ROLES, type Role } from '@shared/domain';
 import type { RouteMeta } from '@server/http/api-router';
-import { makeFixtures, makeTestApp, type Fixtures, type TestContext } from './helpers';
+import { fillRoute as fill, makeFixtures, makeTestApp, type TestContext } from './helpers';
 
 const ALL: Role[] = [...ROLES];
 const PUBLIC = 'public' as const;
@@ -113,24 +113,6 @@ afterAll(() => ctx.close());
 
 const keyOf = (r: RouteMeta) => `${r.method} ${r.path}`;
 
-function fill(path: string, f: Fixtures, userId: number): string {
-  return path
-    .replace(':projectId', String(f.project.id))
-    .replace(':boreId', String(f.bore.id))
-    .replace(':pitId', String(f.pit.id))
-    .replace(':lineId', String(f.line.id))
-    .replace(':holeId', String(f.hole.id))
-    .replace(':ruleId', String(f.rule.id))
-    .replace(':photoId', String(f.photo.id))
-    .replace(':conflictId', String(f.conflict.id))
-    // No stake mark, captured message or outbox message exists in a fresh fixture: allowed roles get 404.
-    .replace(':markId', '999999')
-    .replace(':capturedId', '999999')
-    .replace(':outboxId', '999999')
-    // Zip jobs live in memory per person: a made-up id answers 404 to allowed roles.
-    .replace(':jobId', 'no-such-job')
-    .replace(':userId', String(userId));
-}
 
 function call(method: RouteMeta['method'], url: string, cookie?: string) {
   const req = request(ctx.app)[method](url);

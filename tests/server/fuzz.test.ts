@@ -11,7 +11,7 @@ import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import type { RouteMeta } from '@server/http/api-router';
-import { makeFixtures, makeTestApp, tableCounts, type Fixtures, type TestContext } from './helpers';
+import { fillRoute, makeFixtures, makeTestApp, tableCounts, type Fixtures, type TestContext } from './helpers';
 
 const RUNS = Number(process.env.FUZZ_RUNS ?? 1000);
 
@@ -117,16 +117,7 @@ afterAll(async () => {
 });
 
 function urlOf(path: string): string {
-  return path
-    .replace(':projectId', String(f.project.id))
-    .replace(':boreId', String(f.bore.id))
-    .replace(':pitId', String(f.pit.id))
-    .replace(':lineId', String(f.line.id))
-    .replace(':holeId', String(f.hole.id))
-    .replace(':ruleId', String(f.rule.id))
-    .replace(':conflictId', String(f.conflict.id))
-    .replace(':photoId', String(f.photo.id))
-    .replace(':userId', String(ctx.users.viewer.id));
+  return fillRoute(path, f, ctx.users.viewer.id);
 }
 
 describe('fuzzing every write endpoint', () => {

@@ -138,3 +138,23 @@ export async function tableCounts(orm: MikroORM): Promise<Record<string, number>
   }
   return counts;
 }
+
+/** A route path with the fixture's ids put in (ids of records a fixture lacks answer 404). */
+export function fillRoute(path: string, f: Fixtures, userId: number): string {
+  return path
+    .replace(':projectId', String(f.project.id))
+    .replace(':boreId', String(f.bore.id))
+    .replace(':pitId', String(f.pit.id))
+    .replace(':lineId', String(f.line.id))
+    .replace(':holeId', String(f.hole.id))
+    .replace(':ruleId', String(f.rule.id))
+    .replace(':photoId', String(f.photo.id))
+    .replace(':conflictId', String(f.conflict.id))
+    // No stake mark, captured message or outbox message exists in a fresh fixture: allowed roles get 404.
+    .replace(':markId', '999999')
+    .replace(':capturedId', '999999')
+    .replace(':outboxId', '999999')
+    // Zip jobs live in memory per person: a made-up id answers 404 to allowed roles.
+    .replace(':jobId', 'no-such-job')
+    .replace(':userId', String(userId));
+}

@@ -1,3 +1,4 @@
+import { matchesFilterable, type ConflictFilter } from '@shared/conflicts';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import {
   CLEARANCE_STATUSES,
@@ -417,29 +418,12 @@ export async function loadExportData(em: EntityManager, project: Project, user: 
   return { frame, input, report, lines, linesById, holes, bores, pits, photos, conflicts: rows };
 }
 
-/** The conflict filter of the register (all parts optional; several values match any of them). */
-export interface ConflictFilterInput {
-  status?: ConflictStatus[];
-  computedStatus?: ClearanceStatus[];
-  boreId?: number[];
-  kind?: LineKind[];
-  assignee?: (number | 'none')[];
-  q?: string;
-}
+/** The conflict filter of the register (the same as the Conflicts screen's). */
+export type ConflictFilterInput = ConflictFilter;
 
-/** True when a row passes the filter (the same rules as the Conflicts screen's filter). */
+/** True when a row passes the filter: the register's own rule (shared/conflicts.ts). */
 export function matchesFilter(row: ConflictExportRow, filter: ConflictFilterInput): boolean {
-  if (filter.status?.length && !filter.status.includes(row.status)) return false;
-  if (filter.computedStatus?.length && !filter.computedStatus.includes(row.computedStatus)) return false;
-  if (filter.boreId?.length && !filter.boreId.includes(row.boreId)) return false;
-  if (filter.kind?.length && !filter.kind.includes(row.line.kind)) return false;
-  if (filter.assignee?.length && !filter.assignee.includes(row.assigneeId ?? 'none')) return false;
-  const q = filter.q?.trim().toLowerCase();
-  if (q) {
-    const hay = [row.number, row.line.label, row.line.owner, row.boreName, row.assigneeName ?? '', row.responsibleParty ?? ''].join(' ').toLowerCase();
-    if (!hay.includes(q)) return false;
-  }
-  return true;
+  return matchesFilterable(row, filter);
 }
 
 /** The filter in words for a header: `status = Open, In review; kind = Gas`, or `none (everything)`. */
