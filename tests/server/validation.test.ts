@@ -202,3 +202,23 @@ describe('versions change only on the record written', () => {
     expect(await versions()).toEqual(before);
   });
 });
+
+describe('the hole list and the hole detail agree', () => {
+  it('when a hole is read in the list and on its own, then every field is the same (rows vs entities)', async () => {
+    const g = await makeFixtures(ctx);
+    const patched = await request(ctx.app)
+      .patch(`/api/projects/${g.project.id}/holes/${g.hole.id}`)
+      .set('Cookie', ctx.cookie('field'))
+      .send({ dugAt: '2026-11-30T14:05:00.000Z', markerSet: true, version: g.hole.version });
+    expect(patched.status).toBe(200);
+    const list = await request(ctx.app).get(`/api/projects/${g.project.id}/holes`).set('Cookie', ctx.cookie('viewer'));
+    const detail = await request(ctx.app).get(`/api/projects/${g.project.id}/holes/${g.hole.id}`).set('Cookie', ctx.cookie('viewer'));
+    expect(list.status).toBe(200);
+    expect(list.body.find((h: { id: number }) => h.id === g.hole.id)).toEqual(detail.body);
+    expect(detail.body.photoCount).toBe(1);
+    expect(detail.body.createdById).toBe(ctx.users.field.id);
+    expect(typeof detail.body.approximate).toBe('boolean');
+    expect(detail.body.dugAt).toBe('2026-11-30T14:05:00.000Z');
+    expect(detail.body.markerSet).toBe(true);
+  });
+});
