@@ -13,6 +13,8 @@ export const queryClient = new QueryClient({
     queries: {
       staleTime: 30_000,
       retry: shouldRetry,
+      // Ask even with no signal: the service worker may answer from its copy of the last reads.
+      networkMode: 'offlineFirst',
     },
     mutations: {
       retry: false,

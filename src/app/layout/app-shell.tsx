@@ -1,4 +1,4 @@
-import { Suspense } from 'react';
+import { Suspense, useState } from 'react';
 import { Link, Navigate, NavLink, Outlet, useLocation } from 'react-router-dom';
 import { ROLE_LABELS } from '@shared/domain';
 import { can } from '@shared/permissions';
@@ -9,6 +9,10 @@ import { cn } from '@/components/ui/cn';
 import { Loading } from '@/components/ui/states';
 import { useSession, useSignedOutOnPurpose } from '@/features/auth/api/get-session';
 import { useLogout } from '@/features/auth/api/logout';
+import { UnsentIndicator } from '@/features/outbox/components/outbox-panel';
+import { downloadUnsent } from '@/features/outbox/export-unsent';
+import { isUnsent, listOutbox } from '@/features/outbox/outbox-store';
+import { useOutboxSender } from '@/features/outbox/use-outbox';
 import { Logo } from './logo';
 
 function navClass({ isActive }: { isActive: boolean }) {
@@ -20,6 +24,15 @@ function navClass({ isActive }: { isActive: boolean }) {
 
 function Header({ user }: { user: UserDto }) {
   const logout = useLogout();
+  // Signing out with records still on this phone warns first (they are kept unless exported and cleared by the browser).
+  const [unsentWarning, setUnsentWarning] = useState(0);
+  // The service worker's copy of the last read answers (session, projects, holes) goes with the session.
+  const forgetReads = () => void (typeof caches === 'undefined' ? undefined : caches.delete('tl-api').catch(() => undefined));
+  const signOut = async () => {
+    const unsent = (await listOutbox().catch(() => [])).filter(isUnsent).length;
+    if (unsent > 0 && unsentWarning === 0) setUnsentWarning(unsent);
+    else logout.mutate(undefined, { onSuccess: forgetReads });
+  };
   return (
     <header className="bg-brand-900 text-white">
       <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-4 px-3 py-1 sm:px-6">
@@ -43,17 +56,39 @@ function Header({ user }: { user: UserDto }) {
           )}
         </nav>
         <div className="ml-auto flex items-center gap-3">
+          <UnsentIndicator />
           <div className="min-w-0 text-right leading-tight">
             <p className="max-w-40 truncate text-sm font-medium sm:max-w-none" data-testid="signed-in-user">
               {user.name}
             </p>
             <p className="text-xs text-brand-200">{ROLE_LABELS[user.role]}</p>
           </div>
-          <Button variant="inverse" size="sm" busy={logout.isPending} onClick={() => logout.mutate()}>
+          <Button variant="inverse" size="sm" busy={logout.isPending} onClick={() => void signOut()}>
             Sign out
           </Button>
         </div>
       </div>
+      {unsentWarning > 0 && (
+        <div role="alertdialog" aria-label="Unsent records" className="mx-auto max-w-7xl px-3 pb-3 sm:px-6">
+          <div className="space-y-2 rounded-lg bg-caution-100 p-3 text-sm text-caution-900">
+            <p className="font-semibold">
+              {unsentWarning} record{unsentWarning === 1 ? ' is' : 's are'} on this phone only and not yet on the server.
+            </p>
+            <p>Signing out keeps them on this phone; they are sent the next time Threadline is open here with a connection. Export them first if this phone is shared or leaving the site.</p>
+            <div className="flex flex-wrap gap-2">
+              <Button size="sm" variant="secondary" onClick={() => void downloadUnsent()}>
+                Export unsent
+              </Button>
+              <Button size="sm" busy={logout.isPending} onClick={() => logout.mutate(undefined, { onSuccess: forgetReads })}>
+                Keep them here and sign out
+              </Button>
+              <Button size="sm" variant="ghost" onClick={() => setUnsentWarning(0)}>
+                Stay signed in
+              </Button>
+            </div>
+          </div>
+        </div>
+      )}
       {logout.isError && (
         <div className="mx-auto max-w-7xl px-3 pb-2 sm:px-6">
           <ProblemAlert error={logout.error} />
@@ -69,6 +104,7 @@ function Header({ user }: { user: UserDto }) {
  */
 export function AppShell() {
   const session = useSession();
+  useOutboxSender();
   const signedOutOnPurpose = useSignedOutOnPurpose();
   const location = useLocation();
 

@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { can } from '@shared/permissions';
 import { ProblemAlert } from '@/components/ui/alert';
@@ -8,6 +9,7 @@ import { useBores } from '@/features/bores/api/get-bores';
 import { useHoles } from '@/features/holes/api/get-holes';
 import { HoleForm } from '@/features/holes/components/hole-form';
 import { useLines } from '@/features/lines/api/get-lines';
+import { KeptHole } from '@/features/outbox/components/kept-hole';
 import { useWorkspace } from './workspace-context';
 
 /** Log a test hole: the phone-first form; on save, the new hole's page (to add photos). */
@@ -18,6 +20,8 @@ export default function HoleNewPage() {
   const lines = useLines(project.id);
   const bores = useBores(project.id);
   const holes = useHoles(project.id);
+  const [kept, setKept] = useState<string | null>(null);
+  const [formKey, setFormKey] = useState(0);
 
   let body;
   if (!can(user.role, 'hole.create'))
@@ -34,9 +38,20 @@ export default function HoleNewPage() {
         <p>Every test hole records the line it exposes. This project has no lines yet; a designer adds them on the Lines tab.</p>
       </EmptyState>
     );
+  else if (kept)
+    body = (
+      <KeptHole
+        clientId={kept}
+        onNext={() => {
+          setKept(null);
+          setFormKey((k) => k + 1);
+        }}
+      />
+    );
   else
     body = (
       <HoleForm
+        key={formKey}
         project={project}
         role={user.role}
         userName={user.name}
@@ -46,6 +61,7 @@ export default function HoleNewPage() {
         mode={{ kind: 'create' }}
         onSaved={(hole) => navigate(`../${hole.id}`, { relative: 'path', state: { saved: 'created' } })}
         onCancel={() => navigate('..', { relative: 'path' })}
+        onKept={setKept}
       />
     );
 

@@ -17,6 +17,9 @@ export function useCreateHole(projectId: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: HoleCreateInput) => createHole(projectId, input),
+    // Sent even when the browser says it is offline: the failure is answered at once (the form keeps the
+    // entries, a new hole goes to the outbox) instead of a save button that waits without a word.
+    networkMode: 'always',
     onSuccess: (hole) => {
       queryClient.setQueryData(holeKeys.detail(projectId, hole.id), hole);
       return invalidateAfterHoleWrite(queryClient);

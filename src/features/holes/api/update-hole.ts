@@ -21,6 +21,9 @@ export function useUpdateHole(projectId: number, holeId: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: HoleUpdateInput) => updateHole(projectId, holeId, input),
+    // Sent even when the browser says it is offline: the failure is answered at once (the form keeps the
+    // entries, a new hole goes to the outbox) instead of a save button that waits without a word.
+    networkMode: 'always',
     onSuccess: (hole) => {
       queryClient.setQueryData(holeKeys.detail(projectId, holeId), hole);
       return invalidateAfterHoleWrite(queryClient);

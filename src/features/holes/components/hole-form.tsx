@@ -16,6 +16,7 @@ import { SelectField, TextAreaField, TextField } from '@/components/ui/field';
 import { isApiError } from '@/lib/api-client';
 import { asNumberOrNull, fieldMessage } from '@/lib/form';
 import { formatCoordinate, formatDateTime, formatLength, formatSize } from '@/lib/format';
+import { keepHole } from '@/features/outbox/outbox-store';
 import { useCreateHole } from '../api/create-hole';
 import { useCreateUnknownLine } from '../api/create-unknown-line';
 import { staleHoleOf, useUpdateHole } from '../api/update-hole';
@@ -68,6 +69,8 @@ interface Props {
   mode: Mode;
   onSaved: (hole: HoleDto, how: 'created' | 'updated' | 'unchanged') => void;
   onCancel?: () => void;
+  /** When given, a new hole that cannot reach the server is kept in the phone's outbox and this is called with its client id. */
+  onKept?: (clientId: string) => void;
 }
 
 /**
@@ -75,7 +78,7 @@ interface Props {
  * bore, or the phone's GPS), depth and elevation, the line as found, and the digging record.
  * Checked with the shared create schema; a create carries a client-made id kept across retries.
  */
-export function HoleForm({ project, role, userName, lines, bores, holes, mode, onSaved, onCancel }: Props) {
+export function HoleForm({ project, role, userName, lines, bores, holes, mode, onSaved, onCancel, onKept }: Props) {
   const unit = UNIT_SYMBOLS[project.unit];
   const datum = project.verticalDatum;
   const style = project.stationStyle;
@@ -306,6 +309,17 @@ export function HoleForm({ project, role, userName, lines, bores, holes, mode, o
       reset(holeToValues(hole, style));
       onSaved(hole, 'updated');
     } catch (error) {
+      // No connection: keep a new hole in the outbox (its client id goes with it, so it is sent once).
+      if (!base && onKept && isApiError(error) && error.status === 0 && values.lineChoice !== NEW_LINE && input.lineId !== PENDING_LINE_ID) {
+        // If this browser cannot store it (private mode, storage full), the form keeps the entries as before.
+        const kept = await keepHole(project, input).catch(() => null);
+        if (kept) {
+          clientId.current = newClientId();
+          create.reset();
+          onKept(kept.clientId);
+          return;
+        }
+      }
       const current = staleHoleOf(error);
       if (current && base) {
         const body = toUpdateInput(input, base);
