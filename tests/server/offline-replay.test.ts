@@ -17,6 +17,7 @@ import { ApiError } from '@/lib/api-client';
 import { sendOutbox, type OutboxTransport } from '@/features/outbox/outbox-sender';
 import { dropHole, keepHole, keepPhotos, listOutbox } from '@/features/outbox/outbox-store';
 import { unsentExport } from '@/features/outbox/export-unsent';
+import { importUnsentFile } from '@/features/outbox/import-unsent';
 import { plainPng } from './exif-fixture';
 import { makeFixtures, makeTestApp, type Fixtures, type TestContext } from './helpers';
 
@@ -201,5 +202,35 @@ describe('the phone outbox sent to the real API', () => {
     const file = unsentExport(await listOutbox());
     expect(file.holes.map((h) => h.number)).toEqual(['TH-O4']);
     expect(file.holes[0]).toMatchObject({ crs: f.project.crsCode, unit: f.project.unit, verticalDatum: f.project.verticalDatum, body: { clientId: bad.clientId } });
+  });
+});
+
+describe('the office imports a phone\'s file of unsent records', () => {
+  it('when the file is imported twice, and again in another browser, then each hole and photo arrives once', async () => {
+    const f = await makeFixtures(ctx);
+    const a = await keepHole({ id: f.project.id, name: f.project.name, crsCode: f.project.crsCode, unit: f.project.unit, verticalDatum: f.project.verticalDatum }, body(f, 'TH-X1'));
+    await keepPhotos(a.clientId, [await png('x1.png'), await png('x2.png')]);
+    const file = JSON.stringify(unsentExport(await listOutbox()));
+    for (const h of await listOutbox()) await dropHole(h.clientId); // the phone is lost; the office has the file
+    expect(await importUnsentFile(file)).toEqual({ added: 1, inFile: 1 });
+    expect(await importUnsentFile(file)).toEqual({ added: 0, inFile: 1 });
+    await sendOutbox(transport(f));
+    expect(await counts(f, a.clientId)).toEqual({ holes: 1, photos: 2 });
+    // Another browser imports the same file and sends it: the server already has everything.
+    for (const h of await listOutbox()) await dropHole(h.clientId);
+    await importUnsentFile(file);
+    const again = transport(f);
+    await sendOutbox(again);
+    expect(again.calls.filter((c) => c.startsWith('photo'))).toEqual([]);
+    expect(await counts(f, a.clientId)).toEqual({ holes: 1, photos: 2 });
+  });
+
+  it('when the file is not an export of unsent records, then it is refused with a message and nothing is kept', async () => {
+    await expect(importUnsentFile('not json')).rejects.toThrow(/not JSON/);
+    await expect(importUnsentFile(JSON.stringify({ format: 'something-else', version: 1, holes: [] }))).rejects.toThrow(/not a file of unsent records/);
+    await expect(
+      importUnsentFile(JSON.stringify({ format: 'threadline-unsent-records', version: 1, holes: [{ clientId: 'x' }] })),
+    ).rejects.toThrow(/cannot be imported: holes\.0\./);
+    expect(await listOutbox()).toEqual([]);
   });
 });

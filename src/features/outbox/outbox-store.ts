@@ -169,3 +169,24 @@ export async function dropHole(clientId: string): Promise<void> {
   await (await db()).delete('holes', clientId);
   changed();
 }
+
+/**
+ * Put records read from an exported file into this browser's outbox (the office sends them on).
+ * A record whose client id is already here is left as it is, so importing a file twice adds nothing.
+ * Returns how many records were added.
+ */
+export async function importRecords(records: readonly Omit<OutboxHole, 'seq'>[]): Promise<number> {
+  const d = await db();
+  const tx = d.transaction('holes', 'readwrite');
+  const last = await tx.store.index('seq').openCursor(null, 'prev');
+  let seq = last?.value.seq ?? 0;
+  let added = 0;
+  for (const record of records) {
+    if (await tx.store.get(record.clientId)) continue;
+    await tx.store.put({ ...record, seq: ++seq });
+    added++;
+  }
+  await tx.done;
+  changed();
+  return added;
+}

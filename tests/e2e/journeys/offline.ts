@@ -251,4 +251,43 @@ export const OFFLINE_JOURNEYS: Journey[] = [
       }
     },
   },
+  {
+    name: 'offline: the office imports a phone\'s file of unsent records, twice, and the hole arrives once',
+    allowErrors: OFFLINE_ERRORS,
+    async run({ page, baseUrl, shots }) {
+      const office = await apiSession(baseUrl, 'designer');
+      const projectId = await roadProjectId(office);
+      const lines = await office<{ id: number; label: string }[]>(`/api/projects/${projectId}/lines`);
+      const gas = road.lines.find((l) => l.key === 'gas-6')!;
+      const lineId = lines.find((l) => l.label === gas.label)!.id;
+      const at = gasMain();
+      // A file as "Export unsent" writes it (src/features/outbox/export-unsent.ts), from a lost phone.
+      const file = {
+        format: 'threadline-unsent-records',
+        version: 1,
+        exportedAt: new Date().toISOString(),
+        holes: [
+          {
+            projectId, project: road.project.name, crs: road.project.crsCode, unit: road.project.unit, verticalDatum: road.project.verticalDatum,
+            clientId: '7b0c8a52-4d1e-4c7a-9a35-3f0b2f6d9e11', number: 'TH-79', madeAt: new Date().toISOString(), status: 'local', reason: null, holeId: null,
+            body: { clientId: '7b0c8a52-4d1e-4c7a-9a35-3f0b2f6d9e11', number: 'TH-79', lineId, positionSource: 'grid', easting: at.e, northing: at.n, depthToTop: 4.1 },
+            photos: [{ name: 'th79.png', type: 'image/png', takenAt: '2026-12-01T15:00:00.000Z', caption: 'exposed', status: 'local', reason: null, base64: (await png(0x996633ff)).toString('base64') }],
+          },
+        ],
+      };
+      const buffer = Buffer.from(JSON.stringify(file));
+      await signIn(page, baseUrl, 'designer');
+      await page.goto(`${baseUrl}/projects/${projectId}/holes`);
+      const input = page.getByLabel('Import unsent records (a file exported from a phone)');
+      for (const expected of ['1 new here; 1 sent', '0 new here']) {
+        await input.setInputFiles({ name: 'threadline-unsent.json', mimeType: 'application/json', buffer });
+        await page.getByRole('status').filter({ hasText: expected }).waitFor({ timeout: 20_000 });
+      }
+      await page.screenshot({ path: join(shots, 'offline-office-import.png'), fullPage: true });
+      const holes = await holesNamed(office, projectId, 'TH-79');
+      check(holes.length === 1, `expected one TH-79, found ${holes.length}`);
+      const photos = await office<PhotoDto[]>(`/api/projects/${projectId}/holes/${holes[0]!.id}/photos`);
+      check(photos.length === 1, `expected one photo, found ${photos.length}`);
+    },
+  },
 ];

@@ -14,6 +14,7 @@ import { worstStatusByLine } from '@/features/holes/utils/labels';
 import { useLines } from '@/features/lines/api/get-lines';
 import { formatDateTime } from '@/lib/format';
 import { useWorkspace } from './workspace-context';
+import { ImportUnsentButton } from '@/features/outbox/components/import-unsent';
 
 /** Test holes: the register with filters, clearance status and CSV export; links to log a hole and to import survey shots. */
 export default function HolesTab() {
@@ -99,6 +100,7 @@ export default function HolesTab() {
               Import survey shots
             </ButtonLink>
           )}
+          {canLog && <ImportUnsentButton />}
           {canLog && <ButtonLink to="new">Log a test hole</ButtonLink>}
         </div>
       </div>
