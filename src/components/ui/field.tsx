@@ -26,7 +26,7 @@ interface FieldShellProps {
 }
 
 /** Label above, control, then a hint or the error message that names the field. */
-function FieldShell({ id, label, hint, error, required, className, children }: FieldShellProps) {
+export function FieldShell({ id, label, hint, error, required, className, children }: FieldShellProps) {
   return (
     <div className={cn('flex flex-col gap-1', className)}>
       {/* The label holds only the field's name (tests and screen readers find fields by it); the required mark sits beside it. */}
@@ -54,7 +54,8 @@ function FieldShell({ id, label, hint, error, required, className, children }: F
   );
 }
 
-function describedBy(id: string, error: FieldError, hint: ReactNode): string | undefined {
+/** The id of the hint or error a control is described by. */
+export function describedBy(id: string, error: FieldError, hint: ReactNode): string | undefined {
   if (error) return `${id}-error`;
   if (hint) return `${id}-hint`;
   return undefined;

@@ -1,6 +1,7 @@
 import { useId, type ComponentProps, type ReactNode } from 'react';
 import { cn } from '@/components/ui/cn';
 import { fieldMessage } from '@/lib/form';
+import { describedBy, FieldShell } from '@/components/ui/field';
 
 type FieldError = { message?: string } | undefined;
 
@@ -21,19 +22,8 @@ export function MeasureField({
 }: { label: string; unit: string; datum?: string; hint?: ReactNode; error?: FieldError; className?: string } & Omit<ComponentProps<'input'>, 'className'>) {
   const autoId = useId();
   const id = givenId ?? autoId;
-  const describedBy = error ? `${id}-error` : hint ? `${id}-hint` : undefined;
   return (
-    <div className={cn('flex flex-col gap-1', className)}>
-      <div className="flex items-baseline gap-0.5">
-        <label htmlFor={id} className="text-sm font-medium text-ink-800">
-          {label}
-        </label>
-        {required && (
-          <span className="text-sm text-danger-600" aria-hidden title="Required">
-            *
-          </span>
-        )}
-      </div>
+    <FieldShell id={id} label={label} hint={hint} error={error} required={required} className={className}>
       <div className="flex">
         <input
           id={id}
@@ -41,7 +31,7 @@ export function MeasureField({
           inputMode="decimal"
           autoComplete="off"
           aria-invalid={error ? true : undefined}
-          aria-describedby={describedBy}
+          aria-describedby={describedBy(id, error, hint)}
           aria-required={required || undefined}
           className={cn(
             'block min-h-12 w-full min-w-0 rounded-l-md border bg-white px-3 text-base text-ink-900 shadow-xs tabular placeholder:text-ink-400 disabled:bg-ink-100 sm:min-h-11 sm:text-sm',
@@ -54,16 +44,7 @@ export function MeasureField({
           {datum && <span className="ml-1 text-xs text-ink-500">{datum}</span>}
         </span>
       </div>
-      {error ? (
-        <p id={`${id}-error`} className="text-sm text-danger-700">
-          {fieldMessage(label, error.message)}
-        </p>
-      ) : hint ? (
-        <p id={`${id}-hint`} className="text-xs text-ink-500">
-          {hint}
-        </p>
-      ) : null}
-    </div>
+    </FieldShell>
   );
 }
 
