@@ -119,7 +119,7 @@ export function exportRoutes(registry: RouteMeta[], config: AppConfig, storage: 
       sheetProject ??= await jobEm.findOneOrFail(Project, project.id);
       const hole = await jobEm.findOneOrFail(TestHole, { id: holeId, project: sheetProject }, { populate: ['line', 'bore', 'createdBy'] });
       try {
-        return await renderHoleSheets([await loadHoleSheet(jobEm, sheetProject, hole, storage)]);
+        return await renderHoleSheets([await loadHoleSheet(jobEm, sheetProject, hole, storage, { report: data.report, checkedAt: data.frame.checkedAt })]);
       } catch (err) {
         req.log?.warn({ err, holeId }, 'test-hole sheet for the zip failed; the README lists it');
         throw err;

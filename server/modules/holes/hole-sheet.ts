@@ -37,8 +37,18 @@ export interface HoleSheetData {
 /** Photos printed on a sheet. */
 const MAX_PHOTOS = 4;
 
-/** Load what the sheet of a hole's excavation needs (all records sharing its number). */
-export async function loadHoleSheet(em: EntityManager, project: Project, hole: TestHole, storage: FileStorage): Promise<HoleSheetData> {
+/**
+ * Load what the sheet of a hole's excavation needs (all records sharing its number). A caller
+ * drawing many sheets (the export zip) passes the clearance report it already computed, so the
+ * project is computed once, not once per sheet, and every sheet states the same check time.
+ */
+export async function loadHoleSheet(
+  em: EntityManager,
+  project: Project,
+  hole: TestHole,
+  storage: FileStorage,
+  computed?: { report: ClearanceReport; checkedAt: Date },
+): Promise<HoleSheetData> {
   const siblings = await em.find(TestHole, { project, number: hole.number }, { populate: ['line', 'bore', 'createdBy'], orderBy: { id: 'asc' } });
   const records = [hole, ...siblings.filter((h) => h.id !== hole.id)];
   const bores = await em.find(Bore, { project }, { orderBy: { id: 'asc' } });
@@ -66,8 +76,8 @@ export async function loadHoleSheet(em: EntityManager, project: Project, hole: T
     photos,
     preparedBy: creator?.name ?? null,
     reviewedBy: reviewed && accepted?.user ? { name: accepted.user.name, at: accepted.createdAt } : null,
-    report: await computeProjectReport(em, project),
-    checkedAt: new Date(),
+    report: computed?.report ?? (await computeProjectReport(em, project)),
+    checkedAt: computed?.checkedAt ?? new Date(),
   };
 }
 
