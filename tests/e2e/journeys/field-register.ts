@@ -48,7 +48,7 @@ async function openRoadHoles(page: Page, baseUrl: string, role: string) {
 
 async function signOut(page: Page) {
   await page.getByRole('button', { name: /sign out/i }).first().click();
-  await page.getByLabel('Email').waitFor({ timeout: 10_000 });
+  await page.getByLabel('Email').waitFor({ timeout: 30_000 }); // generous: the machines running CI are shared
 }
 
 async function openHole(page: Page) {

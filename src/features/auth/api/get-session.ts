@@ -1,3 +1,4 @@
+import { useRef } from 'react';
 import { queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { SessionDto, UserDto } from '@shared/api';
 import { api, isApiError } from '@/lib/api-client';
@@ -30,9 +31,15 @@ export function useSignedOutOnPurpose(): boolean {
   return useQueryClient().getQueryData(authKeys.signedOut()) === true;
 }
 
-/** The signed-in user. Only for components under the app shell, which guarantees a session. */
+/**
+ * The signed-in user. Only for components under the app shell, which guarantees a session.
+ * On sign-out a page may render once more after the session is cleared and before the shell
+ * sends it to the sign-in page: it then keeps the user it had, instead of failing.
+ */
 export function useSignedInUser(): UserDto {
   const { data } = useSession();
-  if (!data) throw new Error('useSignedInUser used outside a signed-in page');
-  return data.user;
+  const last = useRef<UserDto | null>(null);
+  if (data) last.current = data.user;
+  if (!last.current) throw new Error('useSignedInUser used outside a signed-in page');
+  return last.current;
 }
