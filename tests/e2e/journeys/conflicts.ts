@@ -12,16 +12,12 @@
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { DEMO_SCENARIOS } from '../../../seeds/demo';
-import { check, demoUser, signIn, SIGNED_OUT_PROBE, type Journey } from './support';
+import { check, demoUser, signIn, signOut, SIGNED_OUT_PROBE, type Journey } from './support';
 
 const road = DEMO_SCENARIOS[0]!;
 const STORM = road.lines.find((l) => l.kind === 'storm')!;
 const WATER_DISTRICT = 'engineering@tallowmere-water.example.com';
 
-async function signOut(page: Page) {
-  await page.getByRole('button', { name: /sign out/i }).first().click();
-  await page.getByLabel('Email').waitFor({ timeout: 10_000 });
-}
 
 /** Open the road project's register from wherever the manager landed. */
 async function openRoadConflicts(page: Page) {

@@ -12,7 +12,7 @@ import type { Page } from 'playwright-core';
 import { LINE_KIND_LABELS } from '../../../shared/domain';
 import { gridToLonLat, projectCrs } from '../../../shared/geometry/crs';
 import { DEMO_SCENARIOS } from '../../../seeds/demo';
-import { check, demoUser, signIn, SIGNED_OUT_PROBE, type Journey } from './support';
+import { check, demoUser, signIn, signOut, SIGNED_OUT_PROBE, type Journey } from './support';
 
 const PHONE = { width: 390, height: 844 };
 const DESKTOP = { width: 1280, height: 800 };
@@ -46,10 +46,6 @@ async function openRoadHoles(page: Page, baseUrl: string, role: string) {
   await page.getByRole('heading', { name: 'Test holes' }).waitFor({ timeout: 10_000 });
 }
 
-async function signOut(page: Page) {
-  await page.getByRole('button', { name: /sign out/i }).first().click();
-  await page.getByLabel('Email').waitFor({ timeout: 30_000 }); // generous: the machines running CI are shared
-}
 
 async function openHole(page: Page) {
   await page.getByRole('searchbox', { name: 'Search holes' }).fill(HOLE);

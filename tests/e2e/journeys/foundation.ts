@@ -1,6 +1,6 @@
 import { join } from 'node:path';
 import { DEMO_SCENARIOS, DEMO_USERS } from '../../../seeds/demo';
-import { check, signIn, SIGNED_OUT_PROBE, type Journey } from './support';
+import { check, signIn, signOut, SIGNED_OUT_PROBE, type Journey } from './support';
 
 export const FOUNDATION_JOURNEYS: Journey[] = [
   {
@@ -43,7 +43,7 @@ export const FOUNDATION_JOURNEYS: Journey[] = [
       await page.getByRole('link', { name: 'Users' }).first().click();
       for (const u of DEMO_USERS) await page.getByText(u.email).first().waitFor({ timeout: 10_000 });
       await page.screenshot({ path: join(shots, 'admin-users-desktop.png'), fullPage: true });
-      await page.getByRole('button', { name: /sign out/i }).first().click();
+      await signOut(page);
       await signIn(page, baseUrl, 'viewer');
       check((await page.getByRole('link', { name: 'Users' }).count()) === 0, 'a reviewer sees the Users menu');
     },

@@ -17,10 +17,28 @@ export function demoUser(role: string) {
   return user;
 }
 
+/**
+ * Press "Sign out" and wait for the sign-in form. Signing out reads the phone's outbox before it
+ * calls the server, so navigating away straight after the click can cancel the request and leave
+ * the session alive; always wait here.
+ */
+export async function signOut(page: Page): Promise<void> {
+  await page.getByRole('banner').getByRole('button', { name: 'Sign out' }).click();
+  await page.getByLabel('Email').waitFor({ timeout: 30_000 }); // generous: the machines running CI are shared
+}
+
+/**
+ * Sign in from the home page. The journeys share one browser profile, so a journey may start
+ * with someone still signed in: that session is ended through the header first.
+ */
 export async function signIn(page: Page, baseUrl: string, role: string): Promise<void> {
   const user = demoUser(role);
   await page.goto(`${baseUrl}/`);
-  await page.getByLabel('Email').fill(user.email);
+  const email = page.getByLabel('Email');
+  const signOutButton = page.getByRole('banner').getByRole('button', { name: 'Sign out' });
+  await email.or(signOutButton).first().waitFor({ timeout: 30_000 });
+  if (await signOutButton.isVisible()) await signOut(page);
+  await email.fill(user.email);
   await page.getByLabel('Password').fill(user.password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.getByText(user.name).first().waitFor({ timeout: 10_000 });
