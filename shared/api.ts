@@ -34,6 +34,8 @@ export interface Problem {
   errors?: { path: string; message: string }[];
   /** On a 409 for a stale version: the record as it stands now. */
   current?: unknown;
+  /** On a 409 `in_use` refusing a delete: what holds the record (hole numbers, conflict ids). */
+  holds?: { holes?: string[]; conflicts?: number[] };
 }
 
 export interface UserDto {

@@ -12,6 +12,8 @@ interface Audit {
   entity: string;
   /** Called inside the transaction after the write, for follow-up work such as recomputation. */
   after?: (em: EntityManager) => Promise<void> | void;
+  /** Deletes only: called inside the transaction first; throws (e.g. 409) to refuse the delete. */
+  guard?: (em: EntityManager) => Promise<void>;
 }
 
 /**
@@ -72,6 +74,7 @@ export async function updateAudited<E extends { id: number; version: number }, D
 export async function deleteAudited<E extends { id: number }, D extends object>(audit: Audit, entity: E, present: (e: E) => D): Promise<void> {
   const before = present(entity);
   await audit.em.transactional(async (em) => {
+    await audit.guard?.(em);
     logActivity(em, { project: audit.project, user: audit.user, entity: audit.entity, entityId: entity.id, action: 'delete', before, after: null });
     em.remove(em.merge(entity));
     await em.flush();

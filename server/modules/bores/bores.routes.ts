@@ -4,6 +4,7 @@ import type { AppConfig } from '../../config';
 import { badRequest, notFound } from '../../errors';
 import { createAudited, deleteAudited, updateAudited } from '../../http/audited';
 import { ApiRouter, idOf, type RouteMeta } from '../../http/api-router';
+import { assertBoreDeletable } from '../clearances/delete-guards';
 import { recompute } from '../clearances/recompute-hook';
 import type { EntityManager } from '@mikro-orm/sqlite';
 import type { Project } from '../projects/project.entity';
@@ -43,7 +44,8 @@ export function boreRoutes(registry: RouteMeta[], config: AppConfig): ApiRouter 
 
   api.delete('/bores/:boreId', { access: 'bore.write' }, async ({ em, project, user, params }) => {
     const bore = await findBore(em, project, idOf(params, 'boreId', 'Bore'));
-    await deleteAudited({ em, project, user, entity: 'bore' , after: recompute(project, user) }, bore, presentBore);
+    const guard = (tem: EntityManager) => assertBoreDeletable(tem, bore.id);
+    await deleteAudited({ em, project, user, entity: 'bore', guard, after: recompute(project, user) }, bore, presentBore);
   });
 
   api.get('/pits', { access: 'project.read' }, async ({ em, project }): Promise<PitDto[]> =>

@@ -4,6 +4,8 @@ import type { AppConfig } from '../../config';
 import { notFound } from '../../errors';
 import { createAudited, deleteAudited, updateAudited } from '../../http/audited';
 import { ApiRouter, idOf, type RouteMeta } from '../../http/api-router';
+import type { EntityManager } from '@mikro-orm/sqlite';
+import { assertLineDeletable } from '../clearances/delete-guards';
 import { recompute } from '../clearances/recompute-hook';
 import { presentLine } from './line.presenter';
 import { UtilityLine } from './utility-line.entity';
@@ -51,7 +53,8 @@ export function lineRoutes(registry: RouteMeta[], config: AppConfig): ApiRouter 
   api.delete('/:lineId', { access: 'line.write' }, async ({ em, project, user, params }) => {
     const line = await em.findOne(UtilityLine, { id: idOf(params, 'lineId', 'Line'), project });
     if (!line) throw notFound('Line');
-    await deleteAudited({ em, project, user, entity: 'line' , after: recompute(project, user) }, line, presentLine);
+    const guard = (tem: EntityManager) => assertLineDeletable(tem, line.id);
+    await deleteAudited({ em, project, user, entity: 'line', guard, after: recompute(project, user) }, line, presentLine);
   });
 
   return api;
