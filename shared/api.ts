@@ -218,6 +218,8 @@ export interface PhotoDto {
   gpsSource: 'exif' | 'device' | null;
   /** Horizontal accuracy of a device fix, in metres as the device reported it (EXIF: null). */
   gpsAccuracyMetres: number | null;
+  /** The id the phone made when the photo was picked (null for uploads sent without one). */
+  clientId: string | null;
   uploadedById: number | null;
   createdAt: string;
 }

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { parseBearing } from '../bearing';
 import { DEPTH_REFERENCES, EXCAVATION_METHODS, POSITION_SOURCES, SIDES } from '../domain';
 import { finite, isoDate, length, optionalText, positiveLength, requiredText } from './common';
 
@@ -59,13 +60,57 @@ function positionCheck(
   }
 }
 
+/** Half-length of the stub drawn for a new unidentified line: 5 m each side of the hole (in the project unit when drawn). */
+export const NEW_LINE_STUB_HALF_METRES = 5;
+
+/**
+ * A line on no record, exposed by this hole and added with it. The server makes it kind
+ * unidentified (`unknown`), owner and status unknown, quality level A, drawn as a short stub
+ * through the hole along the hole's `direction`; its size, material and depth are the hole's
+ * own (`measuredSize` or `boxWidth`/`boxHeight`, `material`, `depthToTop`), so they are not repeated here.
+ */
+export const newLineSchema = z.strictObject({
+  label: requiredText(120),
+});
+export type NewLineInput = z.infer<typeof newLineSchema>;
+
+/** Exactly one of `lineId` / `newLine`; a new line needs what it is drawn and sized from. */
+function lineCheck(v: { lineId?: number | null; newLine?: NewLineInput | null; direction?: string | null; depthToTop?: number | null; measuredSize?: number | null; boxWidth?: number | null; boxHeight?: number | null }, ctx: z.RefinementCtx) {
+  const hasLine = v.lineId != null;
+  const hasNew = v.newLine != null;
+  if (hasLine && hasNew) {
+    ctx.addIssue({ code: 'custom', path: ['newLine'], message: 'send either lineId (a line on record) or newLine (a line on no record), not both' });
+  } else if (!hasLine && !hasNew) {
+    ctx.addIssue({ code: 'custom', path: ['lineId'], message: 'is required (or send newLine for a line on no record)' });
+  }
+  if (!hasNew || hasLine) return;
+  if (parseBearing(v.direction) == null) {
+    ctx.addIssue({ code: 'custom', path: ['direction'], message: 'is needed to draw the new line: write a bearing such as N 83° E, an azimuth such as 83, or E-W' });
+  }
+  if (v.depthToTop == null) ctx.addIssue({ code: 'custom', path: ['depthToTop'], message: 'is needed to place the new line in depth' });
+  const box = v.boxWidth != null || v.boxHeight != null;
+  if (box) {
+    if (v.boxWidth == null) ctx.addIssue({ code: 'custom', path: ['boxWidth'], message: 'is needed to add the new line' });
+    if (v.boxHeight == null) ctx.addIssue({ code: 'custom', path: ['boxHeight'], message: 'is needed to add the new line' });
+  } else if (v.measuredSize == null) {
+    ctx.addIssue({ code: 'custom', path: ['measuredSize'], message: 'is needed to add the new line' });
+  }
+}
+
 export const holeCreateSchema = holeFields
   .extend({
     /** Client-made id: a retried create returns the record it already made. */
     clientId: z.uuid(),
+    /** The line exposed, on record. Send this or `newLine`, not both. */
+    lineId: z.number().int().positive().optional(),
+    /** A line on no record found by this hole, made with it in one go (see {@link newLineSchema}). */
+    newLine: newLineSchema.optional(),
   })
   .strict()
-  .superRefine(positionCheck);
+  .superRefine((v, ctx) => {
+    positionCheck(v, ctx);
+    lineCheck(v, ctx);
+  });
 export type HoleCreateInput = z.infer<typeof holeCreateSchema>;
 
 export const holeUpdateSchema = holeFields

@@ -19,10 +19,22 @@ export const photoUploadFieldsSchema = z
     lat: numberField(z.number().min(-90, 'latitude is between -90 and 90').max(90, 'latitude is between -90 and 90')),
     lon: numberField(z.number().min(-180, 'longitude is between -180 and 180').max(180, 'longitude is between -180 and 180')),
     accuracy: numberField(z.number().gt(0, 'must be greater than zero (metres)').max(100_000)),
+    /**
+     * Client-made ids, one per file in the order the files are sent (the field repeated). A
+     * photo whose id this hole already has is not stored again: the upload answers the photo
+     * already kept. Optional: uploads without ids are stored as sent.
+     */
+    clientId: z.preprocess(
+      (v) => (v === undefined || v === '' ? undefined : Array.isArray(v) ? v : [v]),
+      z.array(z.uuid({ error: 'must be a UUID made by the client' })).max(10).optional(),
+    ),
   })
   .superRefine((v, ctx) => {
     if ((v.lat === undefined) !== (v.lon === undefined)) {
       ctx.addIssue({ code: 'custom', path: [v.lat === undefined ? 'lat' : 'lon'], message: 'send latitude and longitude together' });
+    }
+    if (v.clientId && new Set(v.clientId).size !== v.clientId.length) {
+      ctx.addIssue({ code: 'custom', path: ['clientId'], message: 'each photo needs its own client id' });
     }
   });
 export type PhotoUploadFields = z.infer<typeof photoUploadFieldsSchema>;

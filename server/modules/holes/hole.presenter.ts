@@ -70,6 +70,7 @@ export function presentPhoto(p: Photo, projectId: number): PhotoDto {
     takenAtSource: p.takenAtSource ?? null,
     gpsSource: p.gpsSource ?? null,
     gpsAccuracyMetres: p.gpsAccuracy ?? null,
+    clientId: p.clientId ?? null,
     uploadedById: p.uploadedBy?.id ?? null,
     createdAt: p.createdAt.toISOString(),
   };

@@ -1,4 +1,4 @@
-import type { EntityManager } from '@mikro-orm/sqlite';
+import { UniqueConstraintViolationException, type EntityManager } from '@mikro-orm/sqlite';
 import type { ActivityDto, HoleDto, PhotoDto } from '@shared/api';
 import { holeCreateSchema, holeReviewSchema, holeSurveySchema, holeUpdateSchema } from '@shared/schemas/hole';
 import type { AppConfig } from '../../config';
@@ -11,8 +11,10 @@ import { UtilityLine } from '../lines/utility-line.entity';
 import type { Project } from '../projects/project.entity';
 import { User } from '../users/user.entity';
 import { presentHole, presentPhoto } from './hole.presenter';
-import { assertCanEdit, resolvePosition, statusAfterLogging } from './holes.service';
+import { assertCanEdit, resolvePosition, statusAfterLogging, unidentifiedLineAtHole } from './holes.service';
 import { ActivityEntry } from '../activity/activity-entry.entity';
+import { logActivity } from '../activity/activity.service';
+import { presentLine } from '../lines/line.presenter';
 import { Photo } from './photo.entity';
 import { addPhotoRoutes } from './photos.routes';
 import { photoKeys } from './photos.service';
@@ -58,6 +60,14 @@ function holeFromRow(row: Record<string, unknown>): TestHole {
   } as unknown as TestHole;
 }
 
+/** The hole a client id already made in this project (a replay), or null; 409 when another project used the id. */
+async function replayOf(em: EntityManager, project: Project, clientId: string): Promise<HoleDto | null> {
+  const existing = await em.findOne(TestHole, { clientId }, { populate: ['project'] });
+  if (!existing) return null;
+  if (existing.project.id !== project.id) throw conflict('This client id is already used by another record.');
+  return presentHole(existing, (await photoCounts(em, [existing.id])).get(existing.id) ?? 0);
+}
+
 async function findHole(em: EntityManager, project: Project, params: Record<string, string>): Promise<TestHole> {
   const hole = await em.findOne(TestHole, { id: idOf(params, 'holeId', 'Test hole'), project }, { populate: ['line', 'bore', 'createdBy'] });
   if (!hole) throw notFound('Test hole');
@@ -83,26 +93,44 @@ export function holeRoutes(registry: RouteMeta[], config: AppConfig, storage: Fi
     return rows.map((row) => presentHole(holeFromRow(row as unknown as Record<string, unknown>), counts.get(Number(row.id)) ?? 0));
   });
 
+  // A line on no record may come with the hole (`newLine`): the crew that exposes it logs it on
+  // the spot, with or without signal. The line and the hole are made in one transaction, each
+  // with its activity entry; a replay of the client id answers the hole already made (200) and
+  // makes no second line. Field crews may do this here though they cannot use POST /lines.
   api.post('/holes', { access: 'hole.create', body: holeCreateSchema }, async ({ em, project, user, body, status }) => {
     // A retried create (same client-made id) answers with the record already made.
-    const existing = await em.findOne(TestHole, { clientId: body.clientId }, { populate: ['project'] });
-    if (existing) {
-      if (existing.project.id !== project.id) throw conflict('This client id is already used by another record.');
-      return presentHole(existing, (await photoCounts(em, [existing.id])).get(existing.id) ?? 0);
-    }
-    const line = await findLine(em, project, body.lineId);
+    const replayed = await replayOf(em, project, body.clientId);
+    if (replayed) return replayed;
+    const line = body.lineId != null ? await findLine(em, project, body.lineId) : null;
     const position = await resolvePosition(em, project, body);
-    const { clientId, lineId: _lineId, boreId: _boreId, dugAt, ...fields } = body;
-    const dto = await createAudited(
-      { em, project, user, entity: 'hole' , after: recompute(project, user) },
-      () => {
-        const hole = new TestHole(project, line, clientId, body.number, position.easting, position.northing);
-        Object.assign(hole, fields, position, { dugAt: dugAt ? new Date(dugAt) : null, createdBy: em.getReference(User, user.id) });
-        hole.status = statusAfterLogging(hole, body);
-        return hole;
-      },
-      (h) => presentHole(h),
-    );
+    const { clientId, lineId: _lineId, newLine, boreId: _boreId, dugAt, ...fields } = body;
+    let dto: HoleDto;
+    try {
+      dto = await createAudited(
+        { em, project, user, entity: 'hole', after: recompute(project, user) },
+        async (tem) => {
+          let exposed = line;
+          if (!exposed) {
+            exposed = unidentifiedLineAtHole(project, newLine!, body, position);
+            await tem.persistAndFlush(exposed);
+            logActivity(tem, { project, user, entity: 'line', entityId: exposed.id, action: 'create', before: null, after: presentLine(exposed) });
+          }
+          const hole = new TestHole(project, exposed, clientId, body.number, position.easting, position.northing);
+          Object.assign(hole, fields, position, { dugAt: dugAt ? new Date(dugAt) : null, createdBy: tem.getReference(User, user.id) });
+          hole.status = statusAfterLogging(hole, body);
+          return hole;
+        },
+        (h) => presentHole(h),
+      );
+    } catch (err) {
+      // Two sends of the same record at once: the other one made it first (the unique client id
+      // refused this one, and its transaction, line included, was rolled back).
+      if (err instanceof UniqueConstraintViolationException) {
+        const other = await replayOf(em.fork(), project, body.clientId);
+        if (other) return other;
+      }
+      throw err;
+    }
     status(201);
     return dto;
   });

@@ -1,8 +1,11 @@
 import type { EntityManager } from '@mikro-orm/sqlite';
-import type { HoleCreateInput, HoleUpdateInput } from '@shared/schemas/hole';
+import { parseBearing } from '@shared/bearing';
+import { NEW_LINE_STUB_HALF_METRES, type HoleCreateInput, type HoleUpdateInput, type NewLineInput } from '@shared/schemas/hole';
 import { pointAtStationOffset } from '@shared/geometry/station';
+import { UNIT_SYMBOLS, convertLength } from '@shared/units';
 import { AppError, badRequest, forbidden } from '../../errors';
 import { Bore } from '../bores/bore.entity';
+import { UtilityLine } from '../lines/utility-line.entity';
 import type { Project } from '../projects/project.entity';
 import type { User } from '../users/user.entity';
 import type { TestHole } from './test-hole.entity';
@@ -75,4 +78,42 @@ export function assertCanEdit(user: User, hole: TestHole): void {
 export function statusAfterLogging(hole: TestHole, input: Pick<HoleUpdateInput, 'depthToTop'>): TestHole['status'] {
   if (hole.status === 'planned' && (input.depthToTop ?? hole.depthToTop) != null) return 'dug';
   return hole.status;
+}
+
+/**
+ * The line on no record a hole exposed, made with the hole: kind unidentified (`unknown`), owner
+ * and status unknown, quality level A (seen at this hole), its size, material and depth as the
+ * crew measured them, drawn as a stub of 2 × {@link NEW_LINE_STUB_HALF_METRES} m through the hole
+ * along the direction of run the crew gave. The schema has already checked that the direction
+ * reads as a bearing and that the depth and size are there.
+ */
+export function unidentifiedLineAtHole(
+  project: Project,
+  newLine: NewLineInput,
+  hole: Pick<HoleCreateInput, 'number' | 'direction' | 'depthToTop' | 'measuredSize' | 'boxWidth' | 'boxHeight' | 'material'>,
+  at: { easting: number; northing: number },
+): UtilityLine {
+  const azimuthDeg = parseBearing(hole.direction);
+  if (azimuthDeg == null) throw badRequest('The direction of run cannot be read.', [{ path: 'direction', message: 'is needed to draw the new line' }]);
+  const azimuth = (azimuthDeg * Math.PI) / 180;
+  const half = convertLength(NEW_LINE_STUB_HALF_METRES, 'm', project.unit);
+  const dx = Math.sin(azimuth) * half;
+  const dy = Math.cos(azimuth) * half;
+  const round = (x: number) => Math.round(x * 1000) / 1000;
+  const line = new UtilityLine(project, newLine.label, 'Unknown', 'unknown', [
+    [round(at.easting - dx), round(at.northing - dy)],
+    [round(at.easting + dx), round(at.northing + dy)],
+  ]);
+  const box = hole.boxWidth != null || hole.boxHeight != null;
+  line.shape = box ? 'box' : 'round';
+  line.diameter = box ? null : (hole.measuredSize ?? null);
+  line.width = box ? (hole.boxWidth ?? null) : null;
+  line.height = box ? (hole.boxHeight ?? null) : null;
+  line.material = hole.material?.trim() || null;
+  line.status = 'unknown';
+  line.qualityLevel = 'A';
+  line.recordDepth = hole.depthToTop ?? 0;
+  const stub = `${(Math.round(2 * half * 10) / 10).toLocaleString('en-US')} ${UNIT_SYMBOLS[project.unit]}`;
+  line.notes = `Found at test hole ${hole.number}. Drawn as a ${stub} stub along the direction of run the crew gave (${hole.direction!.trim()}); extend its path when more of it is known. Treat as live until identified.`;
+  return line;
 }

@@ -1,4 +1,4 @@
-import { Entity, Enum, ManyToOne, Property, DateTimeType } from '@mikro-orm/core';
+import { Entity, Enum, ManyToOne, Property, DateTimeType, Unique } from '@mikro-orm/core';
 import { BaseEntity } from '../base.entity';
 import { User } from '../users/user.entity';
 import { TestHole } from './test-hole.entity';
@@ -15,6 +15,7 @@ export type PhotoSource = (typeof PHOTO_SOURCES)[number];
  * `thumbnailKey` the upright thumbnail. The last two are made just after the upload answers.
  */
 @Entity({ tableName: 'photos' })
+@Unique({ properties: ['hole', 'clientId'] })
 export class Photo extends BaseEntity {
   @ManyToOne({ entity: () => TestHole, deleteRule: 'cascade' })
   hole: TestHole;
@@ -67,6 +68,13 @@ export class Photo extends BaseEntity {
 
   @Enum({ items: () => PHOTO_STATES, type: 'string', default: 'ready' })
   state: PhotoState = 'ready';
+
+  /**
+   * Id the phone made when the photo was picked: a repeated upload with the same id on the same
+   * hole answers this photo instead of storing a second one. Null for uploads sent without one.
+   */
+  @Property({ type: 'string', length: 36, nullable: true })
+  clientId: string | null = null;
 
   @ManyToOne({ entity: () => User, nullable: true, deleteRule: 'set null' })
   uploadedBy: User | null = null;

@@ -136,8 +136,10 @@ export function addPhotoRoutes(api: ApiRouter, config: AppConfig, storage: FileS
       req.files = undefined; // let the bodies go before the next upload is read
       return received;
     });
-    status(201);
-    return dtos;
+    // As a replayed hole create: 201 when something was stored, 200 with the photos already
+    // kept when every file was a resend (same client id on this hole).
+    status(dtos.created ? 201 : 200);
+    return dtos.photos;
   });
 
   api.patch('/photos/:photoId', { access: 'photo.upload', body: photoUpdateSchema }, async ({ em, project, user, params, body }): Promise<PhotoDto> => {

@@ -1,11 +1,11 @@
 import { randomUUID } from 'node:crypto';
-import type { EntityManager } from '@mikro-orm/sqlite';
+import { UniqueConstraintViolationException, type EntityManager } from '@mikro-orm/sqlite';
 import exifr from 'exifr';
 import { Jimp } from 'jimp';
 import type { Logger } from 'pino';
 import type { PhotoDto } from '@shared/api';
 import type { PhotoUploadFields } from '@shared/schemas/photo';
-import { AppError, forbidden } from '../../errors';
+import { AppError, badRequest, forbidden } from '../../errors';
 import { logActivity } from '../activity/activity.service';
 import { Project } from '../projects/project.entity';
 import { User } from '../users/user.entity';
@@ -56,7 +56,8 @@ export interface UploadedFile {
 /**
  * Check every file, store the originals under server-made keys, write the rows and the activity
  * entry in one transaction, and queue the upright copies and thumbnails. Any refusal or failure
- * leaves no row and no file.
+ * leaves no row and no file. A file whose client id the hole already has is not stored again:
+ * the kept photo stands for it in the answer.
  */
 export async function receivePhotos(args: {
   em: EntityManager;
@@ -68,17 +69,27 @@ export async function receivePhotos(args: {
   fields: PhotoUploadFields;
   maxPixels: number;
   logger: Logger;
-}): Promise<PhotoDto[]> {
+}): Promise<ReceivedPhotos> {
   const { em, storage, project, user, hole, files, fields } = args;
+  const clientIds = fields.clientId;
+  if (clientIds && clientIds.length !== files.length) {
+    throw badRequest('Send one client id per photo.', [{ path: 'clientId', message: `${clientIds.length} client ids for ${files.length} photos; send one per photo, in the order of the files` }]);
+  }
+  // Photos this hole already has by their client-made ids (a resent upload) are not stored again.
+  const known = await keptByClientId(em, hole.id, clientIds);
+  const fresh = files.map((_, i) => i).filter((i) => !known.has(clientIds?.[i] ?? ''));
+  if (fresh.length === 0) return { photos: clientIds!.map((c) => presentPhoto(known.get(c)!, project.id)), created: false };
+
   const inspected = [];
-  for (const [i, f] of files.entries()) inspected.push(await inspectImage(f.buffer, `photos.${i}`, args.maxPixels));
+  for (const i of fresh) inspected.push(await inspectImage(files[i]!.buffer, `photos.${i}`, args.maxPixels));
 
   const written: string[] = [];
   let photos: Photo[];
   try {
-    const planned = inspected.map((info, i) => {
+    const planned = inspected.map((info, n) => {
       const id = randomUUID();
-      return { info, data: files[i]!.buffer, fileKey: `photos/${project.id}/${id}.${info.ext}`, thumbnailKey: `photos/${project.id}/${id}.thumb.jpg` };
+      const i = fresh[n]!;
+      return { info, data: files[i]!.buffer, clientId: clientIds?.[i] ?? null, fileKey: `photos/${project.id}/${id}.${info.ext}`, thumbnailKey: `photos/${project.id}/${id}.thumb.jpg` };
     });
     for (const p of planned) {
       await storage.put(p.fileKey, p.data, p.info.mime);
@@ -97,6 +108,7 @@ export async function receivePhotos(args: {
           byteSize: p.data.length,
         });
         photo.state = 'processing';
+        photo.clientId = p.clientId;
         photo.caption = fields.caption ?? null;
         photo.uploadedBy = tem.getReference(User, user.id);
         // Capture time: EXIF with its time zone first; the form's own exact time next; EXIF
@@ -141,13 +153,35 @@ export async function receivePhotos(args: {
     });
   } catch (err) {
     await Promise.allSettled(written.map((k) => storage.delete(k)));
+    // The same photo sent twice at once: the other upload kept it first, and this one's files
+    // are gone again. Answer with what is kept when every photo of this upload is there.
+    if (err instanceof UniqueConstraintViolationException && clientIds) {
+      const now = await keptByClientId(em.fork(), hole.id, clientIds);
+      if (clientIds.every((c) => now.has(c))) return { photos: clientIds.map((c) => presentPhoto(now.get(c)!, project.id)), created: false };
+    }
     throw err;
   }
   const base = em.fork();
   for (const photo of photos) {
     thumbnails.add(() => processPhoto(base, storage, photo.id, args.logger));
   }
-  return photos.map((p) => presentPhoto(p, project.id));
+  // In the order of the files: photos already kept where their ids were known, the new ones elsewhere.
+  const made = new Map(fresh.map((i, n) => [i, photos[n]!]));
+  return { photos: files.map((_, i) => presentPhoto(made.get(i) ?? known.get(clientIds![i]!)!, project.id)), created: true };
+}
+
+export interface ReceivedPhotos {
+  /** One photo per file sent, in order. */
+  photos: PhotoDto[];
+  /** False when every photo was already kept (a resent upload): nothing was stored. */
+  created: boolean;
+}
+
+/** The hole's photos with one of the given client ids, by client id. */
+async function keptByClientId(em: EntityManager, holeId: number, clientIds: readonly string[] | undefined): Promise<Map<string, Photo>> {
+  if (!clientIds || clientIds.length === 0) return new Map();
+  const rows = await em.fork().find(Photo, { hole: holeId, clientId: { $in: [...clientIds] } }, { populate: ['hole'] });
+  return new Map(rows.map((p) => [p.clientId!, p]));
 }
 
 /**
