@@ -8,6 +8,7 @@ import { UNIT_SYMBOLS } from '@shared/units';
 import { KindSwatch } from '@/components/kind-swatch';
 import { QualityLevelBadge } from '@/components/quality-level';
 import { cn } from '@/components/ui/cn';
+import { CellNote, SortableTable, type SortableColumnMeta } from '@/components/ui/sortable-table';
 import { formatLength, formatOffset } from '@/lib/format';
 import { ClearanceStatusBadge, ConflictStatusBadge, formatCalendarDate, isPastDate } from './conflict-status';
 
@@ -24,12 +25,9 @@ const features = tableFeatures({
   rowSortingFeature,
   sortedRowModel: createSortedRowModel(),
   sortFns: { alphanumeric: sortFn_alphanumeric, basic: sortFn_basic },
+  columnMeta: {} as SortableColumnMeta,
 });
 const helper = createColumnHelper<typeof features, ConflictRowDto>();
-
-function Sub({ children }: { children: React.ReactNode }) {
-  return <span className="block text-xs font-normal text-ink-500 normal-case">{children}</span>;
-}
 
 function stationText(r: ConflictRowDto, style: StationStyle): string {
   if (r.stationFrom == null || r.stationTo == null) return r.station == null ? '—' : formatStation(r.station, style);
@@ -79,7 +77,7 @@ function buildColumns(frame: ConflictTableFrame) {
           <span className="inline-flex flex-col">
             <span>{r.bore.name}</span>
             {r.pits.map((p) => (
-              <Sub key={p.pitId}>{p.kind === 'launch' ? 'launch pit' : 'receiving pit'}</Sub>
+              <CellNote key={p.pitId}>{p.kind === 'launch' ? 'launch pit' : 'receiving pit'}</CellNote>
             ))}
           </span>
         );
@@ -89,7 +87,7 @@ function buildColumns(frame: ConflictTableFrame) {
       id: 'station',
       header: () => (
         <>
-          Station<Sub>offset, {u}</Sub>
+          Station<CellNote>offset, {u}</CellNote>
         </>
       ),
       sortFn: 'basic',
@@ -99,7 +97,7 @@ function buildColumns(frame: ConflictTableFrame) {
         return (
           <span className="inline-flex flex-col">
             <span>{stationText(r, frame.stationStyle)}</span>
-            <Sub>{formatOffset(r.offset, r.side, frame.unit)}</Sub>
+            <CellNote>{formatOffset(r.offset, r.side, frame.unit)}</CellNote>
           </span>
         );
       },
@@ -108,7 +106,7 @@ function buildColumns(frame: ConflictTableFrame) {
       id: 'top',
       header: () => (
         <>
-          Top of line<Sub>{u}, {frame.datum}</Sub>
+          Top of line<CellNote>{u}, {frame.datum}</CellNote>
         </>
       ),
       sortFn: 'basic',
@@ -120,7 +118,7 @@ function buildColumns(frame: ConflictTableFrame) {
       id: 'clearance',
       header: () => (
         <>
-          Clearance<Sub>measured / required, {u}</Sub>
+          Clearance<CellNote>measured / required, {u}</CellNote>
         </>
       ),
       sortFn: 'basic',
@@ -131,7 +129,7 @@ function buildColumns(frame: ConflictTableFrame) {
         return (
           <span className="inline-flex flex-col items-end">
             <span className={cn(r.clearance != null && r.clearance < 0 && 'font-semibold text-danger-700')}>{formatLength(r.clearance, frame.unit)}</span>
-            <Sub>of {formatLength(r.required, frame.unit)}</Sub>
+            <CellNote>of {formatLength(r.required, frame.unit)}</CellNote>
           </span>
         );
       },
@@ -152,7 +150,7 @@ function buildColumns(frame: ConflictTableFrame) {
       id: 'assignee',
       header: () => (
         <>
-          Assignee<Sub>due</Sub>
+          Assignee<CellNote>due</CellNote>
         </>
       ),
       sortFn: 'alphanumeric',
@@ -163,7 +161,7 @@ function buildColumns(frame: ConflictTableFrame) {
         return (
           <span className="inline-flex flex-col">
             <span>{r.assigneeName ?? <span className="text-ink-500">Unassigned</span>}</span>
-            {r.dueDate && <Sub>{late ? <span className="font-semibold text-danger-700">overdue {formatCalendarDate(r.dueDate)}</span> : formatCalendarDate(r.dueDate)}</Sub>}
+            {r.dueDate && <CellNote>{late ? <span className="font-semibold text-danger-700">overdue {formatCalendarDate(r.dueDate)}</span> : formatCalendarDate(r.dueDate)}</CellNote>}
           </span>
         );
       },
@@ -172,7 +170,7 @@ function buildColumns(frame: ConflictTableFrame) {
       id: 'owner',
       header: () => (
         <>
-          Owner told<Sub>answer due</Sub>
+          Owner told<CellNote>answer due</CellNote>
         </>
       ),
       sortFn: 'alphanumeric',
@@ -182,7 +180,7 @@ function buildColumns(frame: ConflictTableFrame) {
         return (
           <span className="inline-flex flex-col">
             <span>{formatCalendarDate(r.ownerNotifiedAt)}</span>
-            {r.answerDueAt && <Sub>{formatCalendarDate(r.answerDueAt)}</Sub>}
+            {r.answerDueAt && <CellNote>{formatCalendarDate(r.answerDueAt)}</CellNote>}
           </span>
         );
       },
@@ -202,61 +200,5 @@ export function ConflictsTable({ rows, frame }: { rows: ConflictRowDto[]; frame:
     initialState: { sorting: [{ id: 'computed', desc: false }] },
     enableSortingRemoval: false,
   });
-  const shown = table.getRowModel().rows;
-  return (
-    <div className="relative overflow-x-auto rounded-lg border border-ink-200 bg-white" tabIndex={0} role="region" aria-label="Conflicts">
-      <table className="min-w-full border-collapse text-sm">
-        <caption className="sr-only">Conflicts; column headers sort</caption>
-        <thead className="bg-ink-50 text-left text-xs font-semibold tracking-wide text-ink-600 uppercase">
-          {table.getHeaderGroups().map((group) => (
-            <tr key={group.id}>
-              {group.headers.map((header, i) => {
-                const numeric = (header.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric;
-                const sorted = header.column.getIsSorted();
-                return (
-                  <th
-                    key={header.id}
-                    scope="col"
-                    aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
-                    className={cn('border-b border-ink-200 px-3 py-2 align-bottom whitespace-nowrap', numeric && 'text-right', i === 0 && 'sticky left-0 z-10 bg-ink-50')}
-                  >
-                    <button
-                      type="button"
-                      onClick={header.column.getToggleSortingHandler()}
-                      className={cn('inline-flex min-h-8 items-end gap-1 text-left uppercase hover:text-ink-900', numeric && 'flex-row-reverse text-right')}
-                    >
-                      <span>
-                        <table.FlexRender header={header} />
-                      </span>
-                      <span aria-hidden className="text-ink-400">
-                        {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}
-                      </span>
-                    </button>
-                  </th>
-                );
-              })}
-            </tr>
-          ))}
-        </thead>
-        <tbody>
-          {shown.map((row) => (
-            <tr key={row.id} className="group border-b border-ink-100 last:border-b-0">
-              {row.getAllCells().map((cell, i) => {
-                const numeric = (cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric;
-                return i === 0 ? (
-                  <th key={cell.id} scope="row" className="sticky left-0 z-10 bg-white px-3 py-2.5 text-left align-top whitespace-nowrap group-hover:bg-ink-50">
-                    <table.FlexRender cell={cell} />
-                  </th>
-                ) : (
-                  <td key={cell.id} className={cn('px-3 py-2.5 align-top whitespace-nowrap group-hover:bg-ink-50', numeric && 'text-right tabular')}>
-                    <table.FlexRender cell={cell} />
-                  </td>
-                );
-              })}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
-  );
+  return <SortableTable table={table} label="Conflicts" caption="Conflicts; column headers sort" />;
 }

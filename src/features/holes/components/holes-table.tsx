@@ -24,6 +24,7 @@ import { KindSwatch } from '@/components/kind-swatch';
 import { QualityLevelBadge } from '@/components/quality-level';
 import { Button } from '@/components/ui/button';
 import { cn } from '@/components/ui/cn';
+import { CellNote, SortableTable, type SortableColumnMeta } from '@/components/ui/sortable-table';
 import { FilterChips } from '@/components/ui/filter-chips';
 import { Badge } from '@/components/ui/states';
 import { formatCoordinate, formatDateTime, formatLength, formatOffset } from '@/lib/format';
@@ -119,6 +120,7 @@ const features = tableFeatures({
   filteredRowModel: createFilteredRowModel(),
   sortFns: { alphanumeric: sortFn_alphanumeric, basic: sortFn_basic },
   filterFns: { equals: filterFn_equals, includesString: filterFn_includesString },
+  columnMeta: {} as SortableColumnMeta,
 });
 
 const helper = createColumnHelper<typeof features, HoleRow>();
@@ -162,8 +164,31 @@ function Position({ row, ctx }: { row: HoleRow; ctx: HoleTableContext }) {
   );
 }
 
-function Sub({ children }: { children: React.ReactNode }) {
-  return <span className="block text-xs font-normal text-ink-500 normal-case">{children}</span>;
+/** An elevation column (ground, top of line): in the project's unit and datum, sorted with blanks last, with a note on how it was found. */
+function elevationColumn(ctx: HoleTableContext, key: 'ground' | 'top', title: string, note: (row: HoleRow) => React.ReactNode) {
+  return helper.accessor(key, {
+    header: () => (
+      <>
+        {title}
+        <CellNote>
+          {UNIT_SYMBOLS[ctx.unit]}, {ctx.datum}
+        </CellNote>
+      </>
+    ),
+    sortFn: 'basic',
+    sortUndefined: 'last',
+    meta: { numeric: true },
+    cell: (info) => {
+      const r = info.row.original;
+      const value = r[key];
+      return value == null ? '—' : (
+        <span>
+          {formatLength(value, ctx.unit)}
+          {note(r)}
+        </span>
+      );
+    },
+  });
 }
 
 function buildColumns(ctx: HoleTableContext) {
@@ -209,7 +234,7 @@ function buildColumns(ctx: HoleTableContext) {
       id: 'clearance',
       header: () => (
         <>
-          Clearance<Sub>line vs bore, worst</Sub>
+          Clearance<CellNote>line vs bore, worst</CellNote>
         </>
       ),
       sortFn: 'basic',
@@ -231,33 +256,12 @@ function buildColumns(ctx: HoleTableContext) {
         return ql ? <QualityLevelBadge level={ql} /> : '—';
       },
     }),
-    helper.display({ id: 'position', header: () => <>Position<Sub>{u}</Sub></>, cell: (info) => <Position row={info.row.original} ctx={ctx} /> }),
-    helper.accessor('ground', {
-      header: () => (
-        <>
-          Ground elev.
-          <Sub>
-            {u}, {ctx.datum}
-          </Sub>
-        </>
-      ),
-      sortFn: 'basic',
-      sortUndefined: 'last',
-      meta: { numeric: true },
-      cell: (info) => {
-        const r = info.row.original;
-        return r.ground == null ? '—' : (
-          <span>
-            {formatLength(r.ground, ctx.unit)}
-            {r.groundSurveyed && <Sub>surveyed</Sub>}
-          </span>
-        );
-      },
-    }),
+    helper.display({ id: 'position', header: () => <>Position<CellNote>{u}</CellNote></>, cell: (info) => <Position row={info.row.original} ctx={ctx} /> }),
+    elevationColumn(ctx, 'ground', 'Ground elev.', (r) => r.groundSurveyed && <CellNote>surveyed</CellNote>),
     helper.accessor('depth', {
       header: () => (
         <>
-          Depth<Sub>{u} below ground</Sub>
+          Depth<CellNote>{u} below ground</CellNote>
         </>
       ),
       sortFn: 'basic',
@@ -268,33 +272,12 @@ function buildColumns(ctx: HoleTableContext) {
         return h.depthToTop == null ? '—' : (
           <span>
             {formatLength(h.depthToTop, ctx.unit)}
-            <Sub>{REFERENCE_LABELS[h.depthReference]}</Sub>
+            <CellNote>{REFERENCE_LABELS[h.depthReference]}</CellNote>
           </span>
         );
       },
     }),
-    helper.accessor('top', {
-      header: () => (
-        <>
-          Top of line elev.
-          <Sub>
-            {u}, {ctx.datum}
-          </Sub>
-        </>
-      ),
-      sortFn: 'basic',
-      sortUndefined: 'last',
-      meta: { numeric: true },
-      cell: (info) => {
-        const r = info.row.original;
-        return r.top == null ? '—' : (
-          <span>
-            {formatLength(r.top, ctx.unit)}
-            <Sub>{r.topSource}</Sub>
-          </span>
-        );
-      },
-    }),
+    elevationColumn(ctx, 'top', 'Top of line elev.', (r) => <CellNote>{r.topSource}</CellNote>),
     helper.accessor('crew', { header: 'Crew', sortFn: 'alphanumeric', sortUndefined: 'last', cell: (info) => <span className="inline-block max-w-48 min-w-32 whitespace-normal">{info.getValue() ?? '—'}</span> }),
     helper.accessor('dugAt', { header: 'Dug at', sortFn: 'alphanumeric', sortUndefined: 'last', cell: (info) => formatDateTime(info.getValue()) }),
     helper.accessor('photos', { header: 'Photos', sortFn: 'basic', meta: { numeric: true } }),
@@ -446,68 +429,7 @@ export function HolesTable({ rows, ctx, frame }: HolesTableProps) {
           </Button>
         </div>
       </div>
-      {shown.length === 0 ? (
-        <p className="rounded-md border border-ink-200 bg-white px-4 py-6 text-center text-sm text-ink-600">No holes match these filters.</p>
-      ) : (
-        <div className="relative overflow-x-auto rounded-lg border border-ink-200 bg-white" tabIndex={0} role="region" aria-label="Test holes">
-          <table className="min-w-full border-collapse text-sm">
-            <caption className="sr-only">Test holes; column headers sort</caption>
-            <thead className="bg-ink-50 text-left text-xs font-semibold tracking-wide text-ink-600 uppercase">
-              {table.getHeaderGroups().map((group) => (
-                <tr key={group.id}>
-                  {group.headers.map((header, i) => {
-                    const numeric = (header.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric;
-                    const sorted = header.column.getIsSorted();
-                    return (
-                      <th
-                        key={header.id}
-                        scope="col"
-                        aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
-                        className={cn('border-b border-ink-200 px-3 py-2 align-bottom whitespace-nowrap', numeric && 'text-right', i === 0 && 'sticky left-0 z-10 bg-ink-50')}
-                      >
-                        {header.column.getCanSort() ? (
-                          <button
-                            type="button"
-                            onClick={header.column.getToggleSortingHandler()}
-                            className={cn('inline-flex min-h-8 items-end gap-1 text-left uppercase hover:text-ink-900', numeric && 'flex-row-reverse text-right')}
-                          >
-                            <span>
-                              <table.FlexRender header={header} />
-                            </span>
-                            <span aria-hidden className="text-ink-400">
-                              {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}
-                            </span>
-                          </button>
-                        ) : (
-                          <table.FlexRender header={header} />
-                        )}
-                      </th>
-                    );
-                  })}
-                </tr>
-              ))}
-            </thead>
-            <tbody>
-              {shown.map((row) => (
-                <tr key={row.id} className="group border-b border-ink-100 last:border-b-0">
-                  {row.getVisibleCells().map((cell, i) => {
-                    const numeric = (cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric;
-                    return i === 0 ? (
-                      <th key={cell.id} scope="row" className="sticky left-0 z-10 bg-white px-3 py-2.5 text-left align-top whitespace-nowrap group-hover:bg-ink-50">
-                        <table.FlexRender cell={cell} />
-                      </th>
-                    ) : (
-                      <td key={cell.id} className={cn('px-3 py-2.5 align-top whitespace-nowrap group-hover:bg-ink-50', numeric && 'text-right tabular')}>
-                        <table.FlexRender cell={cell} />
-                      </td>
-                    );
-                  })}
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
-      )}
+      <SortableTable table={table} label="Test holes" caption="Test holes; column headers sort" emptyText="No holes match these filters." />
     </div>
   );
 }
