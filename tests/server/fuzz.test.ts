@@ -36,7 +36,11 @@ const TEMPLATES: Record<string, (f: Fixtures) => Record<string, unknown>> = {
     path: [[3000050, 13799900], [3000050, 13800100]], recordDepth: 4,
   }),
   'patch /api/projects/:projectId/lines/:lineId': () => ({ recordDepth: 5, version: 1 }),
-  'post /api/projects/:projectId/holes': (f) => ({ clientId: randomUUID(), number: 'TH-F', lineId: f.line.id, positionSource: 'grid', easting: 3000100, northing: 13800020, depthToTop: 4 }),
+  // The richer of the two create forms: a hole with a line on no record (newLine), which writes two records.
+  'post /api/projects/:projectId/holes': () => ({
+    clientId: randomUUID(), number: 'TH-F', newLine: { label: 'Unidentified pipe' }, positionSource: 'grid', easting: 3000100, northing: 13800020,
+    depthToTop: 4, measuredSize: 0.5, direction: 'N 83° E',
+  }),
   'patch /api/projects/:projectId/holes/:holeId': () => ({ notes: 'n', version: 1 }),
   'put /api/projects/:projectId/holes/:holeId/survey': () => ({ surveyedTopElevation: 90, version: 1 }),
   'post /api/projects/:projectId/holes/:holeId/review': () => ({ decision: 'send_back', reason: 'r', version: 1 }),

@@ -12,10 +12,10 @@ import request from 'supertest';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import type { HoleDto, PhotoDto, Problem } from '@shared/api';
 import type { HoleCreateInput } from '@shared/schemas/hole';
-import { Photo, TestHole } from '@server/entities';
+import { Photo, TestHole, UtilityLine } from '@server/entities';
 import { ApiError } from '@/lib/api-client';
 import { sendOutbox, type OutboxTransport } from '@/features/outbox/outbox-sender';
-import { dropHole, keepHole, keepPhotos, listOutbox } from '@/features/outbox/outbox-store';
+import { dropHole, keepHole, keepPhotos, listOutbox, updateHole } from '@/features/outbox/outbox-store';
 import { unsentExport } from '@/features/outbox/export-unsent';
 import { importUnsentFile } from '@/features/outbox/import-unsent';
 import { plainPng } from './exif-fixture';
@@ -36,6 +36,18 @@ function body(f: Fixtures, number: string): HoleCreateInput {
   return { clientId: randomUUID(), number, lineId: f.line.id, positionSource: 'grid', easting: 3000100, northing: 13800020, depthToTop: 4.2 } as HoleCreateInput;
 }
 
+/** A hole on a line on no record (a 0.5 ft pipe running N 83° E), as the form sends it. */
+function newLineBody(f: Fixtures, number: string, label: string): HoleCreateInput {
+  return {
+    clientId: randomUUID(), number, newLine: { label }, positionSource: 'grid', easting: 3000120, northing: 13800040,
+    depthToTop: 3.9, measuredSize: 0.5, direction: 'N 83° E',
+  } as HoleCreateInput;
+}
+
+async function lineCount(f: Fixtures, label: string): Promise<number> {
+  return ctx.orm.em.fork().count(UtilityLine, { project: f.project.id, label });
+}
+
 async function counts(f: Fixtures, clientId: string): Promise<{ holes: number; photos: number }> {
   const em = ctx.orm.em.fork();
   const holes = await em.find(TestHole, { project: f.project.id, clientId });
@@ -44,7 +56,7 @@ async function counts(f: Fixtures, clientId: string): Promise<{ holes: number; p
 }
 
 /** The outbox's transport over the real API (supertest), failing as the browser client would. */
-function transport(f: Fixtures, opts: { loseAnswers?: number } = {}): OutboxTransport & { calls: string[] } {
+function transport(f: Fixtures, opts: { loseAnswers?: number; withoutPhotoIds?: boolean } = {}): OutboxTransport & { calls: string[] } {
   let lose = opts.loseAnswers ?? 0;
   const calls: string[] = [];
   const fail = (res: request.Response): never => {
@@ -66,12 +78,14 @@ function transport(f: Fixtures, opts: { loseAnswers?: number } = {}): OutboxTran
       lost();
       return res.body as HoleDto;
     },
-    async uploadPhoto(projectId, holeId, file, takenAt) {
+    async uploadPhoto(projectId, holeId, file, photo) {
       calls.push(`photo ${file.name}`);
-      const res = await request(ctx.app)
+      let req = request(ctx.app)
         .post(`/api/projects/${projectId}/holes/${holeId}/photos`)
         .set('Cookie', ctx.cookie('field'))
-        .field('takenAt', takenAt)
+        .field('takenAt', photo.takenAt);
+      if (!opts.withoutPhotoIds) req = req.field('clientId', photo.clientId);
+      const res = await req
         .attach('photos', Buffer.from(await file.arrayBuffer()), { filename: file.name, contentType: file.type });
       if (res.status >= 300) fail(res);
       lost();
@@ -182,7 +196,8 @@ describe('the phone outbox sent to the real API', () => {
     expect((await listOutbox())[0]!.photos[0]!.status).toBe('sending');
     const last = transport(f);
     expect(await sendOutbox(last)).toEqual({ sent: 0, refused: 0, stopped: false });
-    expect(last.calls).toEqual([]); // found on the server by its time: not sent again
+    // Sent again with the same client id: the server answers the photo it kept and stores none.
+    expect(last.calls).toEqual(['photo c1.png']);
     expect(await counts(f, a.clientId)).toEqual({ holes: 1, photos: 1 });
     expect((await listOutbox())[0]!.photos[0]!.status).toBe('sent');
   });
@@ -205,6 +220,99 @@ describe('the phone outbox sent to the real API', () => {
   });
 });
 
+describe('a hole on a new unidentified line kept without signal', () => {
+  const project = (f: Fixtures) => ({ id: f.project.id, name: f.project.name, crsCode: f.project.crsCode, unit: f.project.unit, verticalDatum: f.project.verticalDatum });
+
+  it('when a field crew keeps a hole with newLine offline and the answer to its send is lost, then the resend makes no second hole and no second line', async () => {
+    const f = await makeFixtures(ctx);
+    const a = await keepHole(project(f), newLineBody(f, 'TH-U1', 'Unidentified pipe U1'));
+    await keepPhotos(a.clientId, [await png('u1.png')]);
+    expect(await sendOutbox(transport(f, { loseAnswers: 1 }))).toMatchObject({ sent: 0, stopped: true });
+    expect(await counts(f, a.clientId)).toEqual({ holes: 1, photos: 0 });
+    const t = transport(f);
+    expect(await sendOutbox(t)).toEqual({ sent: 1, refused: 0, stopped: false });
+    expect(t.calls).toEqual(['create TH-U1', 'photo u1.png']); // one request for hole and line together
+    expect(await sendOutbox(transport(f))).toEqual({ sent: 0, refused: 0, stopped: false });
+    expect(await counts(f, a.clientId)).toEqual({ holes: 1, photos: 1 });
+    expect(await lineCount(f, 'Unidentified pipe U1')).toBe(1);
+    const hole = await ctx.orm.em.fork().findOneOrFail(TestHole, { clientId: a.clientId }, { populate: ['line'] });
+    expect(hole.line.kind).toBe('unknown');
+    expect(hole.line.qualityLevel).toBe('A');
+  });
+
+  it('when the record is exported, imported twice in the office and sent, then one hole, one line and one photo', async () => {
+    const f = await makeFixtures(ctx);
+    const a = await keepHole(project(f), newLineBody(f, 'TH-U2', 'Unidentified pipe U2'));
+    await keepPhotos(a.clientId, [await png('u2.png')]);
+    const exported = unsentExport(await listOutbox());
+    expect(exported.holes[0]!.body).toMatchObject({ newLine: { label: 'Unidentified pipe U2' } });
+    expect(exported.holes[0]!.body.lineId).toBeUndefined();
+    expect(exported.holes[0]!.photos[0]!.clientId).toBe((await listOutbox())[0]!.photos[0]!.clientId);
+    const file = JSON.stringify(exported);
+    for (const h of await listOutbox()) await dropHole(h.clientId);
+    expect(await importUnsentFile(file)).toEqual({ added: 1, inFile: 1 });
+    expect(await importUnsentFile(file)).toEqual({ added: 0, inFile: 1 });
+    await sendOutbox(transport(f));
+    for (const h of await listOutbox()) await dropHole(h.clientId);
+    await importUnsentFile(file); // another browser sends the same file again
+    await sendOutbox(transport(f));
+    expect(await counts(f, a.clientId)).toEqual({ holes: 1, photos: 1 });
+    expect(await lineCount(f, 'Unidentified pipe U2')).toBe(1);
+  });
+});
+
+describe('photos kept by the earlier version, without a client id', () => {
+  const project = (f: Fixtures) => ({ id: f.project.id, name: f.project.name, crsCode: f.project.crsCode, unit: f.project.unit, verticalDatum: f.project.verticalDatum });
+
+  /** A kept hole already on the server, its one photo stripped of its client id and marked as the old sender left it. */
+  async function legacy(f: Fixtures, number: string, status: 'local' | 'sending') {
+    const a = await keepHole(project(f), body(f, number));
+    await keepPhotos(a.clientId, [await png(`${number}.png`)]);
+    await sendOutbox({ ...transport(f), uploadPhoto: () => Promise.reject(new ApiError({ type: 'about:blank', title: 'offline', status: 0 })) });
+    await updateHole(a.clientId, (h) => {
+      delete h.photos[0]!.clientId;
+      h.photos[0]!.status = status;
+    });
+    return (await listOutbox()).find((h) => h.clientId === a.clientId)!;
+  }
+
+  it('when such a photo left "sending" had arrived (old upload, answer lost), then it is found by its capture time and not sent again', async () => {
+    const f = await makeFixtures(ctx);
+    const kept = await legacy(f, 'TH-L1', 'sending');
+    const photo = kept.photos[0]!;
+    // What the old version sent: the photo with its time, no id.
+    await request(ctx.app)
+      .post(api(f, `/holes/${kept.holeId}/photos`))
+      .set('Cookie', ctx.cookie('field'))
+      .field('takenAt', photo.takenAt)
+      .attach('photos', Buffer.from(photo.data), { filename: photo.name, contentType: photo.type })
+      .expect(201);
+    const t = transport(f);
+    await sendOutbox(t);
+    expect(t.calls).toEqual([]);
+    expect(await counts(f, kept.clientId)).toEqual({ holes: 1, photos: 1 });
+    expect((await listOutbox())[0]!.photos[0]!.status).toBe('sent');
+  });
+
+  it('when such a photo is not on the server, then it is given a client id, kept with it, and sent once even if that answer is lost', async () => {
+    const f = await makeFixtures(ctx);
+    const kept = await legacy(f, 'TH-L2', 'sending');
+    const lossy = transport(f);
+    const upload = lossy.uploadPhoto.bind(lossy);
+    lossy.uploadPhoto = async (...args) => {
+      await upload(...args);
+      throw new ApiError({ type: 'about:blank', title: 'Cannot reach the Threadline server', status: 0 });
+    };
+    expect((await sendOutbox(lossy)).stopped).toBe(true);
+    const given = (await listOutbox())[0]!.photos[0]!.clientId;
+    expect(given).toMatch(/^[0-9a-f-]{36}$/);
+    await sendOutbox(transport(f));
+    expect(await counts(f, kept.clientId)).toEqual({ holes: 1, photos: 1 });
+    const rows = await ctx.orm.em.fork().find(Photo, { hole: kept.holeId! });
+    expect(rows.map((r) => r.clientId)).toEqual([given]);
+  });
+});
+
 describe('the office imports a phone\'s file of unsent records', () => {
   it('when the file is imported twice, and again in another browser, then each hole and photo arrives once', async () => {
     const f = await makeFixtures(ctx);
@@ -221,7 +329,8 @@ describe('the office imports a phone\'s file of unsent records', () => {
     await importUnsentFile(file);
     const again = transport(f);
     await sendOutbox(again);
-    expect(again.calls.filter((c) => c.startsWith('photo'))).toEqual([]);
+    // The photos go again with their client ids (carried in the file); the server keeps its copies.
+    expect(again.calls.filter((c) => c.startsWith('photo'))).toEqual(['photo x1.png', 'photo x2.png']);
     expect(await counts(f, a.clientId)).toEqual({ holes: 1, photos: 2 });
   });
 

@@ -10,7 +10,8 @@ function base64(data: ArrayBuffer): string {
 /**
  * The unsent records as one JSON file the office can read or send on: each hole's request body
  * exactly as the API takes it (POST /api/projects/:projectId/holes, with its client id, so
- * sending it again is harmless) and its unsent photos as base64, under a header naming the
+ * sending it again is harmless; a hole on a new unidentified line carries `newLine`, and the line
+ * is made with it) and its unsent photos as base64 with their client ids, under a header naming the
  * coordinate system, unit and vertical datum of the values.
  */
 export function unsentExport(records: OutboxHole[], exportedAt = new Date()) {
@@ -18,7 +19,7 @@ export function unsentExport(records: OutboxHole[], exportedAt = new Date()) {
     format: 'threadline-unsent-records',
     version: 1,
     exportedAt: exportedAt.toISOString(),
-    note: 'Test holes kept on a phone and not yet received by the server. Each "body" is the create request for POST /api/projects/{projectId}/holes; its clientId makes a repeat send return the record already made.',
+    note: 'Test holes kept on a phone and not yet received by the server. Each "body" is the create request for POST /api/projects/{projectId}/holes; its clientId makes a repeat send return the record already made. A hole on a line on no record carries newLine instead of lineId (the line is made with the hole). Each photo is sent to POST /api/projects/{projectId}/holes/{holeId}/photos with its clientId field, so a repeat send keeps one copy.',
     holes: records.filter(isUnsent).map((h) => ({
       projectId: h.projectId,
       project: h.project.name,
@@ -34,7 +35,7 @@ export function unsentExport(records: OutboxHole[], exportedAt = new Date()) {
       body: h.input,
       photos: h.photos
         .filter((p) => p.status !== 'sent')
-        .map((p) => ({ name: p.name, type: p.type, takenAt: p.takenAt, caption: p.caption ?? null, status: p.status, reason: p.reason ?? null, base64: base64(p.data) })),
+        .map((p) => ({ name: p.name, type: p.type, clientId: p.clientId ?? null, takenAt: p.takenAt, caption: p.caption ?? null, status: p.status, reason: p.reason ?? null, base64: base64(p.data) })),
     })),
   };
 }

@@ -5,6 +5,8 @@ import { importRecords, type OutboxHole } from './outbox-store';
 const photoSchema = z.object({
   name: z.string().max(300),
   type: z.string().max(100),
+  /** Absent in files written before photos had client ids. */
+  clientId: z.uuid().nullish(),
   takenAt: z.iso.datetime({ offset: true }),
   caption: z.string().max(300).nullable(),
   status: z.enum(['local', 'sending', 'sent', 'refused']),
@@ -74,10 +76,12 @@ export async function importUnsentFile(text: string): Promise<{ added: number; i
       name: p.name,
       type: p.type,
       data: bytes(p.base64),
+      ...(p.clientId ? { clientId: p.clientId } : {}),
       takenAt: p.takenAt,
       ...(p.caption ? { caption: p.caption } : {}),
-      // Not known to be sent: 'sending' makes the sender look for the photo on the server (by its
-      // capture time) before uploading it, so a file imported twice never makes a second copy.
+      // Not known to be sent: 'sending' says it may already be there. With its client id the
+      // server answers the photo it kept; an older file's photo without one is looked for by its
+      // capture time first. Either way a file imported twice never makes a second copy.
       status: p.status === 'sent' ? 'sent' : 'sending',
     })),
   }));

@@ -1,12 +1,14 @@
 import type { HoleDto, PhotoDto } from '@shared/api';
 import type { HoleCreateInput } from '@shared/schemas/hole';
 import { isApiError } from '@/lib/api-client';
-import { isUnsent, listOutbox, updateHole, type OutboxHole } from './outbox-store';
+import { newClientId } from '@/features/holes/utils/client-id';
+import { isUnsent, listOutbox, updateHole, type OutboxHole, type OutboxPhoto } from './outbox-store';
 
 /** How the sender reaches the server (the real API in the app; stand-ins in unit tests). */
 export interface OutboxTransport {
   createHole(projectId: number, input: HoleCreateInput): Promise<HoleDto>;
-  uploadPhoto(projectId: number, holeId: number, file: File, takenAt: string, caption?: string): Promise<PhotoDto[]>;
+  /** Upload one photo with its client id (a resend with the same id answers the photo already kept). */
+  uploadPhoto(projectId: number, holeId: number, file: File, photo: { clientId: string; takenAt: string; caption?: string }): Promise<PhotoDto[]>;
   listPhotos(projectId: number, holeId: number): Promise<PhotoDto[]>;
 }
 
@@ -35,7 +37,8 @@ let running: Promise<SendResult> | null = null;
 
 /**
  * Send every unsent record, oldest first: the hole (by its client id, so a replay answers with
- * the record already kept), then its photos one by one. Stops at the first failure that is the
+ * the record already kept; a hole on a new unidentified line carries `newLine` and the server
+ * makes both in one request), then its photos one by one, each with its own client id. Stops at the first failure that is the
  * connection's fault, leaving that record and the ones after it for the next try; a record the
  * server refuses is marked with the reason and the rest go on. One run at a time.
  */
@@ -84,31 +87,48 @@ async function sendOne(transport: OutboxTransport, hole: OutboxHole, result: Sen
       return !transient;
     }
   }
-  for (const photo of hole.photos) {
-    if (photo.status === 'sent' || photo.status === 'refused') continue;
+  for (const kept of hole.photos) {
+    if (kept.status === 'sent' || kept.status === 'refused') continue;
     try {
-      // A photo left "sending" may have arrived with its answer lost: look before sending again.
-      if (photo.status === 'sending') {
-        const there = await transport.listPhotos(hole.projectId, holeId);
-        if (there.some((p) => p.takenAt != null && Date.parse(p.takenAt) === Date.parse(photo.takenAt))) {
-          await setPhoto(hole.clientId, photo.key, 'sent');
-          continue;
+      let photo = kept;
+      if (!photo.clientId) {
+        // Kept by an earlier version, without a client id. One left "sending" may have arrived
+        // with its answer lost, and the server cannot know it by an id it never had: look for it
+        // by its capture time first (the old rule; its times are a millisecond apart per photo).
+        if (photo.status === 'sending') {
+          const there = await transport.listPhotos(hole.projectId, holeId);
+          if (there.some((p) => p.takenAt != null && Date.parse(p.takenAt) === Date.parse(photo.takenAt))) {
+            await setPhoto(hole.clientId, photo.key, 'sent');
+            continue;
+          }
         }
+        photo = await giveClientId(hole.clientId, photo);
       }
       await setPhoto(hole.clientId, photo.key, 'sending');
       const file = new File([photo.data], photo.name, { type: photo.type });
-      await transport.uploadPhoto(hole.projectId, holeId, file, photo.takenAt, photo.caption);
+      // Resending a photo whose answer was lost is harmless: the server answers the one it kept.
+      await transport.uploadPhoto(hole.projectId, holeId, file, { clientId: photo.clientId!, takenAt: photo.takenAt, caption: photo.caption });
       await setPhoto(hole.clientId, photo.key, 'sent');
     } catch (error) {
       if (isTransient(error)) {
-        // Left "sending" on purpose: the next try looks for it on the server first.
+        // Left "sending": the next try sends it again with the same client id.
         return false;
       }
-      await setPhoto(hole.clientId, photo.key, 'refused', reasonOf(error));
+      await setPhoto(hole.clientId, kept.key, 'refused', reasonOf(error));
       result.refused++;
     }
   }
   return true;
+}
+
+/** Give a photo kept without a client id its id, stored before the first send that carries it. */
+async function giveClientId(holeClientId: string, photo: OutboxPhoto): Promise<OutboxPhoto> {
+  const clientId = newClientId();
+  await updateHole(holeClientId, (h) => {
+    const p = h.photos.find((x) => x.key === photo.key);
+    if (p && !p.clientId) p.clientId = clientId;
+  });
+  return { ...photo, clientId };
 }
 
 function setPhoto(clientId: string, key: string, status: OutboxHole['status'], reason?: string) {

@@ -1,5 +1,6 @@
 import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
 import type { HoleCreateInput } from '@shared/schemas/hole';
+import { newClientId } from '@/features/holes/utils/client-id';
 
 /**
  * The outbox: test holes and photos made on this phone that the server has not yet kept, stored
@@ -18,7 +19,14 @@ export interface OutboxPhoto {
   type: string;
   /** The file's bytes (kept as an ArrayBuffer: every browser stores it in IndexedDB). */
   data: ArrayBuffer;
-  /** ISO time the photo was taken or chosen; also how a resent photo is recognised. */
+  /**
+   * Id made on this phone when the photo was picked, sent with the upload: the server keeps one
+   * photo per id and hole, so a resend after a lost answer is harmless. Missing only on photos
+   * kept by an earlier version of the app (or read from its export file); those are recognised
+   * by `takenAt` instead (see outbox-sender.ts).
+   */
+  clientId?: string;
+  /** ISO time the photo was taken or chosen. */
   takenAt: string;
   caption?: string;
   status: OutboxStatus;
@@ -132,7 +140,7 @@ export async function keepPhotos(clientId: string, files: readonly File[], capti
       hole.photos.push({
         key: `${base}-${hole.photos.length}`,
         ...f,
-        // One millisecond apart, so each photo is recognisable if an answer is lost.
+        clientId: newClientId(),
         takenAt: new Date(base + i).toISOString(),
         caption: caption?.trim() || undefined,
         status: 'local',

@@ -10,7 +10,7 @@ import { isUnsent, listOutbox, subscribeOutbox, type OutboxHole } from './outbox
 /** The real API: the same calls the online screens use. */
 export const apiTransport: OutboxTransport = {
   createHole,
-  uploadPhoto: (projectId, holeId, file, takenAt, caption) => uploadPhotos(projectId, holeId, [file], { takenAt, caption }),
+  uploadPhoto: (projectId, holeId, file, photo) => uploadPhotos(projectId, holeId, [file], { takenAt: photo.takenAt, caption: photo.caption, clientIds: [photo.clientId] }),
   listPhotos: (projectId, holeId) => getHolePhotos(projectId, holeId),
 };
 

@@ -13,6 +13,11 @@ export interface PhotoContext {
   lat?: number;
   lon?: number;
   accuracy?: number;
+  /**
+   * One client-made id per file, in order, made when the photo was picked: a resend with the same
+   * ids answers the photos already kept (200) instead of storing them again.
+   */
+  clientIds?: readonly string[];
 }
 
 export interface UploadProgress {
@@ -46,6 +51,7 @@ export function uploadPhotos(
 ): Promise<PhotoDto[]> {
   const form = new FormData();
   for (const file of files) form.append('photos', file, file.name);
+  for (const id of context.clientIds ?? []) form.append('clientId', id);
   if (context.caption?.trim()) form.append('caption', context.caption.trim());
   if (context.takenAt) form.append('takenAt', context.takenAt);
   if (context.lat != null && context.lon != null) {

@@ -5,10 +5,13 @@ import { cn } from '@/components/ui/cn';
 import { formatDateTime, formatNumber } from '@/lib/format';
 import { useUploadPhotos, type UploadProgress } from '../api/upload-photos';
 import { quickPosition } from '../hooks/use-gps-fix';
+import { newClientId } from '../utils/client-id';
 
 interface Staged {
   file: File;
   url: string;
+  /** Made when the photo was picked; sent with it so a retried upload keeps one copy. */
+  clientId: string;
 }
 
 /** The server takes at most this many photos per upload. */
@@ -55,7 +58,8 @@ export function PhotoUpload({ projectId, holeId, holeNumber }: { projectId: numb
     else setTooMany(0);
     const taken = images.slice(0, Math.max(0, room));
     if (taken.length === 0) return;
-    setStaged((old) => [...old, ...taken.map((file) => ({ file, url: URL.createObjectURL(file) }))]);
+    // Each photo gets its id when picked, so sending it again after a lost answer keeps one copy.
+    setStaged((old) => [...old, ...taken.map((file) => ({ file, url: URL.createObjectURL(file), clientId: newClientId() }))]);
     // When and where: the moment the photos were taken or chosen, and the form's own fix.
     setTakenAt(new Date().toISOString());
     if (position.state !== 'got') {
@@ -89,6 +93,7 @@ export function PhotoUpload({ projectId, holeId, holeNumber }: { projectId: numb
         context: {
           caption: caption.trim() || undefined,
           takenAt: takenAt ?? undefined,
+          clientIds: staged.map((s) => s.clientId),
           ...(position.state === 'got' ? { lat: position.lat, lon: position.lon, accuracy: position.accuracy } : {}),
         },
         onProgress: setProgress,
