@@ -2,9 +2,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import Papa from 'papaparse';
 import type { AdminMailDto, CapturedMailDetailDto, ConflictEventDto, ConflictRowDto, MailOwnersResultDto } from '@shared/api';
+import { CONFLICT_STATUS_LABELS } from '@shared/domain';
+import { formatStation } from '@shared/geometry';
 import { createApp } from '@server/app';
 import { randomUUID } from 'node:crypto';
-import { OutboxMessage, Project, TestHole, UtilityLine } from '@server/entities';
+import { Conflict, OutboxMessage, Project, TestHole, UtilityLine } from '@server/entities';
 import { recomputeConflicts } from '@server/modules/clearances/clearance.service';
 import { startMail, type MailRuntime } from '@server/modules/mail/mail-runtime';
 import { deliverDue, retryDelayMs } from '@server/modules/mail/outbox';
@@ -125,32 +127,46 @@ describe('mailing the line owners their conflicts', () => {
     expect(attachment.filename).toBe(body.recipients[0]!.attachmentName);
     expect(attachment.contentType).toBe('text/csv');
 
-    // The CSV, read with papaparse (its `#` lines carry the reference frame).
+    // The attachment is the exports' conflict list CSV (same header block and columns as
+    // GET /exports/conflicts.csv), narrowed to this contact, read with papaparse.
     const csv = attachment.content.toString('utf8');
-    const head = csv.split('\r\n').slice(0, 2);
-    expect(head[0]).toBe(`# Threadline conflict list: ${f.project.name}`);
-    expect(head[1]).toMatch(/^# CRS EPSG:2278; lengths in US survey feet; elevations NAVD 88; last clearance check \d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC$/);
+    const header = csv.replace(/^\ufeff/, '').split('\r\n').filter((l) => l.startsWith('#'));
+    expect(header[0]).toBe('# Threadline: conflict list');
+    expect(header.some((l) => l.startsWith(`# Project: ${f.project.name} (`))).toBe(true);
+    expect(header).toContain('# CRS: EPSG:2278 NAD83 / Texas South Central (ftUS)');
+    expect(header.some((l) => l.startsWith('# Unit: US survey feet (US ft)'))).toBe(true);
+    expect(header).toContain('# Vertical datum: NAVD 88');
+    expect(header).toContain('# Rows: 1 of 2 conflicts; filter: status = Open; In review; owner contact = engineering@water.test.example.com');
+    // The check time is the register's last check, and the message text states the same minute.
+    const checked = header.find((l) => l.startsWith('# Clearances checked: '))!;
+    expect(checked).toMatch(/^# Clearances checked: \d{4}-\d\d-\d\dT\d\d:\d\d:\d\dZ \(UTC; the conflict register's last check/);
+    const minute = checked.slice('# Clearances checked: '.length, '# Clearances checked: '.length + 16).replace('T', ' ');
+    expect(mail!.text).toContain(`last clearance check ${minute} UTC`);
     const parsed = Papa.parse<Record<string, string>>(csv, { header: true, comments: '#', skipEmptyLines: true });
     expect(parsed.errors).toEqual([]);
     expect(parsed.data).toHaveLength(1);
-    // Hand-worked figures of the fixture crossing (see conflicts.test.ts).
-    expect(parsed.data[0]).toMatchObject({
-      id: `C-${f.conflict.id}`,
-      bore: 'Bore 1',
-      station: '11+00.00',
-      'offset (US ft)': '0.00',
-      owner: 'Test water district',
-      contact: 'engineering@water.test.example.com',
-      line: 'W-1',
-      kind: 'Potable water',
-      'size (US ft)': '1.00',
-      'quality level': 'D',
-      'test holes': 'TH-1',
-      'top elevation (US ft NAVD 88)': '86.00',
-      'required clearance (US ft)': '1.50',
-      'measured clearance (US ft)': '-1.10',
-      status: 'Open',
+    // Hand-worked figures of the fixture crossing (see conflicts.test.ts): station 11+00 on the
+    // alignment, top of line 86.00, clearance −1.10 against 1.50 required; 1.000 US ft = 12.0 in.
+    const listed = parsed.data[0]!;
+    expect(listed).toMatchObject({
+      Conflict: `C-${f.conflict.id}`,
+      'Bore or pit': 'Bore 1',
+      'Station (governing)': '11+00.00',
+      Side: '',
+      Owner: 'Test water district',
+      'Owner contact': 'engineering@water.test.example.com',
+      Line: 'W-1',
+      Kind: 'Potable water',
+      'Size (outside)': '1.000 US ft (12.0 in)',
+      'Quality level': 'D',
+      'Test holes': 'TH-1',
+      'Last check': 'Overlap',
+      Status: 'Open',
     });
+    expect(Number(listed['Offset (US ft)'])).toBeCloseTo(0, 6);
+    expect(Number(listed['Top of line (US ft NAVD 88)'])).toBeCloseTo(86, 6);
+    expect(Number(listed['Required clearance (US ft)'])).toBeCloseTo(1.5, 6);
+    expect(Number(listed['Measured clearance (US ft)'])).toBeCloseTo(-1.1, 6);
   });
 
   it('when the message is in the outbox, then an administrator sees it sent on Admin → Mail; others get 403', async () => {
@@ -161,6 +177,81 @@ describe('mailing the line owners their conflicts', () => {
     expect(sent).toMatchObject({ status: 'sent', attempts: 1, lastError: null });
     expect(sent!.attachments[0]!.filename).toMatch(/\.csv$/);
     expect((await get('/api/admin/mail', 'manager')).status).toBe(403);
+  });
+});
+
+describe('the register list, the CSV export and the owner mail attachments agree', () => {
+  it('when both lines have a contact and one conflict is in review, then all three give the same conflicts, statuses, figures and check time', async () => {
+    const f = await fixtureWithContacts();
+    const em = ctx.orm.em.fork();
+    const gas = await em.findOneOrFail(UtilityLine, { project: f.project.id, label: f.gasLabel });
+    gas.contactEmail = 'locates@gas.test.example.com'; // a contact changes no clearance: no recheck needed
+    await em.flush();
+    const w1 = (await get(`/api/projects/${f.project.id}/conflicts/${f.conflict.id}`)).body as ConflictRowDto;
+    const moved = await request(ctx.app)
+      .patch(`/api/projects/${f.project.id}/conflicts/${f.conflict.id}/status`)
+      .set('Cookie', ctx.cookie('designer'))
+      .send({ status: 'in_review', reason: 'Checking the profile', version: w1.version });
+    expect(moved.status).toBe(200);
+
+    // 1. The register list (the Conflicts screen), for the statuses the mail sends by default.
+    const register = (await get(`/api/projects/${f.project.id}/conflicts?status=open,in_review`)).body as ConflictRowDto[];
+    expect(register.map((r) => r.status).sort()).toEqual(['in_review', 'open']);
+    // 2. The CSV a manager exports for that filter.
+    const exported = await get(`/api/projects/${f.project.id}/exports/conflicts.csv?status=open,in_review`, 'manager');
+    expect(exported.status).toBe(200);
+    // 3. The owner mail: one message per contact, each with its CSV, read back over SMTP.
+    const smtp = await startTestSmtp();
+    const attachments: string[] = [];
+    try {
+      const sent = await post(`/api/projects/${f.project.id}/mail/owners`, { mode: 'send' });
+      expect(sent.status).toBe(200);
+      const ids = (sent.body as MailOwnersResultDto).recipients.map((r) => r.outboxId!);
+      expect(ids).toHaveLength(2);
+      const report = await deliverDue(ctx.orm.em.fork(), loopbackSender(smtp.port), FROM, new Date());
+      expect(report.sent.filter((id) => ids.includes(id)).sort()).toEqual([...ids].sort());
+      for (const m of await smtp.parsed()) if (m.subject?.startsWith(f.project.name)) attachments.push(m.attachments[0]!.content.toString('utf8'));
+    } finally {
+      await smtp.close();
+    }
+    expect(attachments).toHaveLength(2);
+
+    // Read every CSV with papaparse; compare what matters: number, status, last check and figures.
+    const read = (csv: string) => Papa.parse<Record<string, string>>(csv, { header: true, comments: '#', skipEmptyLines: true }).data;
+    const fromCsv = (r: Record<string, string>) => ({
+      number: r.Conflict,
+      status: r.Status,
+      line: r.Line,
+      station: r['Station (governing)'],
+      clearance: Number(r['Measured clearance (US ft)']),
+      required: Number(r['Required clearance (US ft)']),
+      margin: Number(r['Margin (US ft)']),
+      lineTop: Number(r['Top of line (US ft NAVD 88)']),
+    });
+    const round = (v: number | null) => (v == null ? Number.NaN : Math.round(v * 10_000) / 10_000);
+    const fromRegister = register.map((r) => ({
+      number: r.number,
+      status: CONFLICT_STATUS_LABELS[r.status],
+      line: r.line.label,
+      station: r.station == null ? '' : formatStation(r.station, '100'),
+      clearance: round(r.clearance),
+      required: round(r.required),
+      margin: round(r.margin),
+      lineTop: round(r.lineTop),
+    }));
+    const byNumber = <T extends { number: string | undefined }>(rows: T[]) => [...rows].sort((a, b) => String(a.number).localeCompare(String(b.number)));
+    const exportRows = read(exported.text).map(fromCsv);
+    const mailRows = attachments.flatMap((csv) => read(csv).map(fromCsv));
+    expect(byNumber(exportRows)).toEqual(byNumber(fromRegister));
+    expect(byNumber(mailRows)).toEqual(byNumber(fromRegister));
+    // Hand-worked (fixture comments above): W-1 clearance −1.10, G-1 −0.70 US ft.
+    expect(fromRegister.map((r) => r.clearance).sort((a, b) => a - b)).toEqual([-1.1, -0.7]);
+    expect(fromRegister.map((r) => r.station).sort()).toEqual(['11+00.00', '12+00.00']);
+
+    // Every file states the register's last check: the latest time the check wrote on the conflicts.
+    const stored = await ctx.orm.em.fork().find(Conflict, { project: f.project.id });
+    const last = new Date(Math.max(...stored.map((c) => c.checkedAt.getTime()))).toISOString().replace(/\.\d{3}Z$/, 'Z');
+    for (const csv of [exported.text, ...attachments]) expect(csv).toContain(`# Clearances checked: ${last} (UTC; the conflict register's last check`);
   });
 });
 

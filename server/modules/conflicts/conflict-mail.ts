@@ -7,7 +7,7 @@ import type { OutboxMessage } from '../mail/outbox-message.entity';
 import type { Project } from '../projects/project.entity';
 import type { User } from '../users/user.entity';
 import { Conflict } from './conflict.entity';
-import { presentConflictRow } from './conflict-rows';
+import { conflictNumber, presentConflictRow } from './conflict-rows';
 
 /** A few lines describing a conflict (bore, line and user must be loaded). */
 export function conflictSummary(c: Conflict, project: Project): string[] {
@@ -35,7 +35,7 @@ export async function queueAssignmentMail(
   a: { project: Project; conflict: Conflict; assignee: User; by: User; change: 'assigned' | 'due_changed'; publicUrl: string | null },
 ): Promise<OutboxMessage | null> {
   const { project, conflict, assignee, by } = a;
-  const number = `C-${conflict.id}`;
+  const number = conflictNumber(conflict.id);
   const due = conflict.dueDate ? textDate(conflict.dueDate) : null;
   const subject =
     a.change === 'assigned'
@@ -79,7 +79,7 @@ export async function queueDueReminders(em: EntityManager, now: Date, publicUrl:
       project: c.project,
       purpose: 'due_reminder',
       to: assignee.email,
-      subject: `${overdue ? 'Overdue' : 'Due'} ${date}: C-${c.id} ${c.line.label} × ${c.bore.name}`,
+      subject: `${overdue ? 'Overdue' : 'Due'} ${date}: ${conflictNumber(c.id)} ${c.line.label} × ${c.bore.name}`,
       text: [
         `Hello ${assignee.name},`,
         '',

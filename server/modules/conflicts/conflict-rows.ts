@@ -75,15 +75,27 @@ export function presentConflictRow(c: Conflict, holesOnLine: { id: number; numbe
   };
 }
 
+/** The conflict register of a project: every row, and when the clearance check last ran over it. */
+export interface ConflictRegister {
+  rows: ConflictRowDto[];
+  /**
+   * The latest clearance check the stored figures come from (every write that can change a
+   * clearance rechecks the register in its own transaction); null when the register is empty.
+   */
+  checkedAt: Date | null;
+}
+
 /**
- * The conflict register of a project as rows (SPEC §8 columns), filtered. A fixed set of
- * queries whatever the number of conflicts: the conflicts with their bore, line and assignee,
- * then the holes of those lines. Exports use this too, so the screen and the files agree.
+ * The one builder of conflict rows (SPEC §8 columns): the register list and row, the conflict
+ * exports (CSV, XLSX, PDF, the zip) and the owner mail's attachment all read it, so the screen,
+ * the files and the mail show the same figures of the same check. The figures are the stored
+ * ones of the last recheck, never recomputed here. Two queries whatever the number of
+ * conflicts: the conflicts with their bore, line and assignee, then the holes of those lines.
  */
-export async function listConflictRows(em: EntityManager, project: Project, filter: ConflictFilter = {}, ids?: number[]): Promise<ConflictRowDto[]> {
+export async function loadConflictRegister(em: EntityManager, project: Project, ids?: number[]): Promise<ConflictRegister> {
   const where = ids ? { project, id: { $in: ids } } : { project };
   const conflicts = await em.find(Conflict, where, { populate: ['bore', 'line', 'assignee'], orderBy: { id: 'asc' } });
-  if (conflicts.length === 0) return [];
+  if (conflicts.length === 0) return { rows: [], checkedAt: null };
   const lineIds = [...new Set(conflicts.map((c) => c.line.id))];
   const holes = await em
     .createQueryBuilder(TestHole, 'h')
@@ -95,5 +107,13 @@ export async function listConflictRows(em: EntityManager, project: Project, filt
     const lineId = Number(h.line_id ?? h.lineId ?? h.line);
     byLine.set(lineId, [...(byLine.get(lineId) ?? []), { id: Number(h.id), number: String(h.number), status: h.status }]);
   }
-  return conflicts.map((c) => presentConflictRow(c, byLine.get(c.line.id) ?? [])).filter((row) => matchesConflictFilter(row, filter));
+  return {
+    rows: conflicts.map((c) => presentConflictRow(c, byLine.get(c.line.id) ?? [])),
+    checkedAt: new Date(Math.max(...conflicts.map((c) => c.checkedAt.getTime()))),
+  };
+}
+
+/** The register's rows that pass a filter (the list route; `ids` narrows the read to those conflicts). */
+export async function listConflictRows(em: EntityManager, project: Project, filter: ConflictFilter = {}, ids?: number[]): Promise<ConflictRowDto[]> {
+  return (await loadConflictRegister(em, project, ids)).rows.filter((row) => matchesConflictFilter(row, filter));
 }

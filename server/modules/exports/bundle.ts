@@ -1,9 +1,9 @@
 import JSZip from 'jszip';
 import type { LineKind } from '@shared/domain';
 import type { FileStorage } from '../../storage/storage';
-import { conflictCsv, conflictPdf, conflictXlsx, rowsLine } from './conflict-list';
+import { conflictCsv, conflictList, conflictPdf, conflictXlsx } from './conflict-list';
 import { holesCsv, linesCsv } from './data-tables';
-import { describeFilter, matchesFilter, type ConflictFilterInput, type ProjectExportData } from './export-data';
+import { conflictListFrame, filterNames, type ConflictFilterInput, type ProjectExportData } from './export-data';
 import { DESIGN_AID_CAUTION, FIELD_CAUTIONS, isoSeconds } from './export-header';
 import { projectGeojson } from './geojson';
 import { stakeoutCsv, stakeoutDxf, stakeoutPoints } from './stakeout';
@@ -51,15 +51,14 @@ export async function buildBundle(data: ProjectExportData, storage: FileStorage,
   const dataSteps = 8;
   let step = 0;
   const dataStep = (label: string) => onProgress({ phase: 'data', label, done: ++step, total: dataSteps, percent: Math.round((step / dataSteps) * 10) });
-  const rows = data.conflicts.filter((r) => matchesFilter(r, filter));
-  const users = new Map(data.conflicts.filter((r) => r.assigneeId != null).map((r) => [r.assigneeId!, r.assigneeName ?? '']));
-  const filterText = describeFilter(filter, data, users);
-  const info = rowsLine(rows.length, data.conflicts.length, filterText);
-  add('conflicts.csv', conflictCsv(frame, rows, info));
+  // The conflict list is the register as the Conflicts screen shows it, stating its last check.
+  const { rows, info, filterText } = conflictList(data.register, filter, filterNames(data.register.rows, data.bores));
+  const listFrame = conflictListFrame(frame, data.register);
+  add('conflicts.csv', conflictCsv(listFrame, rows, info));
   dataStep('Conflict list (CSV)');
-  add('conflicts.xlsx', await conflictXlsx(frame, rows, info));
+  add('conflicts.xlsx', await conflictXlsx(listFrame, rows, info));
   dataStep('Conflict list (XLSX)');
-  add('conflicts.pdf', await conflictPdf(frame, rows, info));
+  add('conflicts.pdf', await conflictPdf(listFrame, rows, info));
   dataStep('Conflict list (PDF)');
   const stakeFilter = { boreId: filter.boreId, kind: filter.kind };
   const points = stakeoutPoints(data, stakeFilter);
@@ -160,7 +159,9 @@ export function readme(data: ProjectExportData, facts: ReadmeFacts): string {
     `CRS definition:      ${frame.crsProj4}`,
     `Unit:                ${frame.unitLabel} (${frame.unitSymbol}) for all coordinates and lengths and elevations`,
     `Vertical datum:      ${frame.verticalDatum} (every elevation)`,
-    `Clearances checked:  ${isoSeconds(frame.checkedAt)} UTC (recomputed when this zip was made)`,
+    `Clearances checked:  ${isoSeconds(data.computedAt)} UTC (recomputed when this zip was made: stake-out points, GeoJSON, sheets)`,
+    `Conflict register:   ${data.register.checkedAt ? `last checked ${isoSeconds(data.register.checkedAt)} UTC` : 'no conflict on the register'}; the conflict files list the register as the`,
+    '                     Conflicts screen shows it (every change that can move a clearance rechecks it)',
     `Exported:            ${isoSeconds(frame.exportedAt)} UTC by ${frame.exportedBy}`,
     `Filter:              ${facts.filterText}`,
     '',

@@ -1,10 +1,14 @@
 import ExcelJS from 'exceljs';
 import PDFDocument from 'pdfkit';
+import type { ConflictRowDto } from '@shared/api';
+import { matchesConflictFilter } from '@shared/conflicts';
 import { CONFLICT_STATUS_LABELS, type ClearanceStatus } from '@shared/domain';
 import type { CsvIdStyle } from '@shared/schemas/export';
+import type { ConflictRegister } from '../conflicts/conflict-rows';
 import { csvDocument, type CsvColumn } from './csv';
-import type { ConflictExportRow, ExportFrame } from './export-data';
+import { describeFilter, type ConflictFilterInput, type ExportFrame, type FilterNames } from './export-data';
 import {
+  checkText,
   decimalsOf,
   DESIGN_AID_CAUTION,
   headerBlock,
@@ -18,9 +22,14 @@ import {
 } from './export-header';
 
 /**
- * The conflict list (SPEC §8) as CSV, XLSX and PDF. One column list feeds CSV and XLSX so the
- * two never disagree; the PDF prints the same facts grouped into fewer, wrapped columns.
+ * The conflict list (SPEC §8) as CSV, XLSX and PDF, from the register's rows
+ * (`loadConflictRegister`, the one builder of conflict rows). One column list feeds CSV and XLSX
+ * so the two never disagree; the PDF prints the same facts grouped into fewer, wrapped columns.
+ * The owner mail attaches this same CSV.
  */
+
+/** A register row as the conflict list prints it. */
+type Row = ConflictRowDto;
 
 /** Our words for the computed status (the Conflicts screen uses the same). */
 export const CLEARANCE_STATUS_WORDS: Record<ClearanceStatus, string> = {
@@ -33,6 +42,19 @@ export const CLEARANCE_STATUS_WORDS: Record<ClearanceStatus, string> = {
 
 type Cell = string | number | Date | null;
 
+const at = (iso: string | null | undefined): Date | null => (iso ? new Date(iso) : null);
+
+/** The bore, and the pits the line conflicts with: `Bore 1; launch pit (line enters it)`. */
+export function conflictWith(r: Row): string {
+  return [r.bore.name, ...r.pits.map((p) => `${p.kind} pit${p.enters ? ' (line enters it)' : ' (line near it)'}`)].join('; ');
+}
+
+/** The test holes on the line (those verifying the governing point first), each number once. */
+const holeNumbers = (r: Row): string => [...new Set(r.holes.map((h) => h.number))].join(', ');
+
+const stationRange = (r: Row, frame: ExportFrame): string =>
+  r.stationFrom == null ? '' : r.stationFrom === r.stationTo ? stationText(r.stationFrom, frame) : `${stationText(r.stationFrom, frame)} to ${stationText(r.stationTo, frame)}`;
+
 /** A column of the conflict list: text (kept as text everywhere), number (project unit) or date. */
 export interface ConflictColumn {
   key: string;
@@ -43,7 +65,7 @@ export interface ConflictColumn {
   /** Text people typed (guarded against spreadsheet formulas in CSV). */
   user?: boolean;
   width: number;
-  value: (row: ConflictExportRow) => Cell;
+  value: (row: Row) => Cell;
 }
 
 /** The columns, with units and the vertical datum in the headers. */
@@ -51,9 +73,9 @@ export function conflictColumns(frame: ExportFrame): ConflictColumn[] {
   const u = frame.unitSymbol;
   return [
     { key: 'number', header: 'Conflict', type: 'text', id: true, width: 10, value: (r) => r.number },
-    { key: 'conflictWith', user: true, header: 'Bore or pit', type: 'text', width: 22, value: (r) => r.conflictWith },
+    { key: 'conflictWith', user: true, header: 'Bore or pit', type: 'text', width: 22, value: conflictWith },
     { key: 'computed', header: 'Last check', type: 'text', width: 18, value: (r) => CLEARANCE_STATUS_WORDS[r.computedStatus] },
-    { key: 'stationRange', header: 'Station range', type: 'text', width: 22, value: (r) => (r.stationFrom == null ? '' : r.stationFrom === r.stationTo ? stationText(r.stationFrom, frame) : `${stationText(r.stationFrom, frame)} to ${stationText(r.stationTo, frame)}`) },
+    { key: 'stationRange', header: 'Station range', type: 'text', width: 22, value: (r) => stationRange(r, frame) },
     { key: 'station', header: 'Station (governing)', type: 'text', width: 14, value: (r) => stationText(r.station, frame) },
     { key: 'offset', header: `Offset (${u})`, type: 'number', width: 10, value: (r) => round4(r.offset) },
     { key: 'side', header: 'Side', type: 'text', width: 6, value: (r) => (r.offset ? (r.side ?? '') : '') },
@@ -64,7 +86,7 @@ export function conflictColumns(frame: ExportFrame): ConflictColumn[] {
     { key: 'size', header: 'Size (outside)', type: 'text', width: 22, value: (r) => sizeText(r.line, frame) },
     { key: 'material', user: true, header: 'Material', type: 'text', width: 12, value: (r) => r.line.material ?? '' },
     { key: 'ql', header: 'Quality level', type: 'text', width: 8, value: (r) => r.line.qualityLevel },
-    { key: 'holes', user: true, header: 'Test holes', type: 'text', id: true, width: 18, value: (r) => r.holes.join(', ') },
+    { key: 'holes', user: true, header: 'Test holes', type: 'text', id: true, width: 18, value: holeNumbers },
     { key: 'lineTop', header: `Top of line (${u} ${frame.verticalDatum})`, type: 'number', width: 14, value: (r) => round4(r.lineTop) },
     { key: 'governing', header: 'Clearance measured', type: 'text', width: 12, value: (r) => r.governing ?? '' },
     { key: 'required', header: `Required clearance (${u})`, type: 'number', width: 12, value: (r) => round4(r.required) },
@@ -74,11 +96,11 @@ export function conflictColumns(frame: ExportFrame): ConflictColumn[] {
     { key: 'resolution', user: true, header: 'Resolution', type: 'text', width: 30, value: (r) => r.resolutionNote ?? '' },
     { key: 'responsible', user: true, header: 'Responsible party', type: 'text', width: 20, value: (r) => r.responsibleParty ?? '' },
     { key: 'assignee', user: true, header: 'Assignee', type: 'text', width: 18, value: (r) => r.assigneeName ?? '' },
-    { key: 'due', header: 'Due (assignee)', type: 'date', width: 12, value: (r) => r.dueDate },
-    { key: 'found', header: 'Found (UTC)', type: 'datetime', width: 18, value: (r) => r.foundAt },
-    { key: 'told', header: 'Owner told', type: 'date', width: 12, value: (r) => r.ownerNotifiedAt },
-    { key: 'answerDue', header: 'Answer due', type: 'date', width: 12, value: (r) => r.answerDueAt },
-    { key: 'closed', header: 'Closed', type: 'date', width: 12, value: (r) => r.closedAt },
+    { key: 'due', header: 'Due (assignee)', type: 'date', width: 12, value: (r) => at(r.dueDate) },
+    { key: 'found', header: 'Found (UTC)', type: 'datetime', width: 18, value: (r) => at(r.createdAt) },
+    { key: 'told', header: 'Owner told', type: 'date', width: 12, value: (r) => at(r.ownerNotifiedAt) },
+    { key: 'answerDue', header: 'Answer due', type: 'date', width: 12, value: (r) => at(r.answerDueAt) },
+    { key: 'closed', header: 'Closed', type: 'date', width: 12, value: (r) => at(r.closedAt) },
     { key: 'notes', user: true, header: 'Notes', type: 'text', width: 30, value: (r) => r.notes ?? '' },
   ];
 }
@@ -88,12 +110,30 @@ export function rowsLine(shown: number, total: number, filterText: string): [str
   return ['Rows', `${shown} of ${total} conflicts; filter: ${filterText}`];
 }
 
+/** A conflict list: the register's rows that pass the filter, and the header's Rows line. */
+export interface ConflictList {
+  rows: Row[];
+  info: [string, string];
+  filterText: string;
+}
+
+/**
+ * The rows of the register that pass a filter (the Conflicts screen's rule, shared/conflicts.ts)
+ * and, optionally, a further narrowing the filter cannot say (the owner mail's contact), with its words.
+ */
+export function conflictList(register: Pick<ConflictRegister, 'rows'>, filter: ConflictFilterInput, names: FilterNames, also?: { keep: (r: Row) => boolean; words: string }): ConflictList {
+  const rows = register.rows.filter((r) => matchesConflictFilter(r, filter) && (!also || also.keep(r)));
+  const base = describeFilter(filter, names);
+  const filterText = also ? (base === 'none (everything)' ? also.words : `${base}; ${also.words}`) : base;
+  return { rows, info: rowsLine(rows.length, register.rows.length, filterText), filterText };
+}
+
 // ---------------------------------------------------------------------------------------------
 // CSV
 
 /** The conflict list as CSV: the header block as `#` lines, then the column row and the rows. */
-export function conflictCsv(frame: ExportFrame, rows: ConflictExportRow[], rowsInfo: [string, string], ids: CsvIdStyle = 'plain'): string {
-  const columns: CsvColumn<ConflictExportRow>[] = conflictColumns(frame).map((c) => ({
+export function conflictCsv(frame: ExportFrame, rows: Row[], rowsInfo: [string, string], ids: CsvIdStyle = 'plain'): string {
+  const columns: CsvColumn<Row>[] = conflictColumns(frame).map((c) => ({
     header: c.header,
     text: c.type !== 'number',
     id: c.id,
@@ -114,7 +154,7 @@ export function conflictCsv(frame: ExportFrame, rows: ConflictExportRow[], rowsI
  * The conflict list as an XLSX workbook: the header block above the table, the column row
  * frozen and filterable, identifiers stored as text (format `@`) so `007` stays `007`.
  */
-export async function conflictXlsx(frame: ExportFrame, rows: ConflictExportRow[], rowsInfo: [string, string]): Promise<Buffer> {
+export async function conflictXlsx(frame: ExportFrame, rows: Row[], rowsInfo: [string, string]): Promise<Buffer> {
   const wb = new ExcelJS.Workbook();
   wb.creator = 'Threadline';
   wb.created = frame.exportedAt;
@@ -184,7 +224,7 @@ export function pdfSafe(text: string): string {
 interface PdfColumn {
   header: string;
   width: number;
-  text: (r: ConflictExportRow) => string;
+  text: (r: Row) => string;
 }
 
 function pdfColumns(frame: ExportFrame): PdfColumn[] {
@@ -193,13 +233,13 @@ function pdfColumns(frame: ExportFrame): PdfColumn[] {
     { header: 'Conflict', width: 44, text: (r) => r.number },
     { header: 'Line', width: 92, text: (r) => [r.line.label, kindLabel(r.line), sizeText(r.line, frame), [r.line.material, `QL ${r.line.qualityLevel}`].filter(Boolean).join(', ')].filter(Boolean).join('\n') },
     { header: 'Owner and contact', width: 92, text: (r) => [r.line.owner, r.line.contactEmail ?? ''].filter(Boolean).join('\n') },
-    { header: 'Bore or pit', width: 70, text: (r) => r.conflictWith.replace(/; /g, '\n') },
+    { header: 'Bore or pit', width: 70, text: (r) => conflictWith(r).replace(/; /g, '\n') },
     {
       header: 'Station, offset',
       width: 74,
       text: (r) =>
         [
-          r.stationFrom == null ? '' : r.stationFrom === r.stationTo ? stationText(r.stationFrom, frame) : `${stationText(r.stationFrom, frame)} to ${stationText(r.stationTo, frame)}`,
+          stationRange(r, frame),
           r.offset ? `${len(r.offset)} ${r.side ?? ''}` : r.offset === 0 ? 'on the bore' : '',
         ]
           .filter(Boolean)
@@ -213,17 +253,17 @@ function pdfColumns(frame: ExportFrame): PdfColumn[] {
     },
     { header: 'Last check', width: 54, text: (r) => CLEARANCE_STATUS_WORDS[r.computedStatus] },
     { header: 'Status, resolution', width: 84, text: (r) => [CONFLICT_STATUS_LABELS[r.status], r.resolutionNote ?? '', r.responsibleParty ? `Responsible: ${r.responsibleParty}` : '', r.assigneeName ? `Assignee: ${r.assigneeName}` : ''].filter(Boolean).join('\n') },
-    { header: 'Test holes', width: 46, text: (r) => r.holes.join(', ') },
+    { header: 'Test holes', width: 46, text: holeNumbers },
     {
       header: 'Dates',
       width: 82,
       text: (r) =>
         [
-          `found ${isoDay(r.foundAt)}`,
-          r.ownerNotifiedAt ? `owner told ${isoDay(r.ownerNotifiedAt)}` : '',
-          r.answerDueAt ? `answer due ${isoDay(r.answerDueAt)}` : '',
-          r.dueDate ? `due ${isoDay(r.dueDate)}` : '',
-          r.closedAt ? `closed ${isoDay(r.closedAt)}` : '',
+          `found ${isoDay(new Date(r.createdAt))}`,
+          r.ownerNotifiedAt ? `owner told ${isoDay(new Date(r.ownerNotifiedAt))}` : '',
+          r.answerDueAt ? `answer due ${isoDay(new Date(r.answerDueAt))}` : '',
+          r.dueDate ? `due ${isoDay(new Date(r.dueDate))}` : '',
+          r.closedAt ? `closed ${isoDay(new Date(r.closedAt))}` : '',
         ]
           .filter(Boolean)
           .join('\n'),
@@ -236,7 +276,7 @@ function pdfColumns(frame: ExportFrame): PdfColumn[] {
  * and the design-aid caution on the first page, the frame repeated in each page's running head,
  * the column row repeated on every page, page numbers at the foot.
  */
-export function conflictPdf(frame: ExportFrame, rows: ConflictExportRow[], rowsInfo: [string, string]): Promise<Buffer> {
+export function conflictPdf(frame: ExportFrame, rows: Row[], rowsInfo: [string, string]): Promise<Buffer> {
   const doc = new PDFDocument({ size: 'LETTER', layout: 'landscape', margin: 36, bufferPages: true, info: { Title: `${frame.projectName}: conflict list`, Author: 'Threadline', Creator: 'Threadline' } });
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
@@ -292,7 +332,7 @@ export function conflictPdf(frame: ExportFrame, rows: ConflictExportRow[], rowsI
     if (doc.y + h > bottom) {
       doc.addPage();
       doc.font('Helvetica').fontSize(7).fillColor('#444444');
-      doc.text(pdfSafe(`${frame.projectName}: conflict list (continued). ${frame.crsCode}, ${frame.unitLabel}, ${frame.verticalDatum}; clearances checked ${isoSeconds(frame.checkedAt)}`), left, doc.page.margins.top);
+      doc.text(pdfSafe(`${frame.projectName}: conflict list (continued). ${frame.crsCode}, ${frame.unitLabel}, ${frame.verticalDatum}; clearances checked ${checkText(frame.check, 'short')}`), left, doc.page.margins.top);
       doc.fillColor('black');
       doc.y += 4;
       drawHead();

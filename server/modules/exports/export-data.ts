@@ -1,46 +1,45 @@
-import { matchesFilterable, type ConflictFilter } from '@shared/conflicts';
 import type { EntityManager } from '@mikro-orm/sqlite';
+import type { ConflictRowDto } from '@shared/api';
+import type { ConflictFilter } from '@shared/conflicts';
 import {
-  CLEARANCE_STATUSES,
   CONFLICT_STATUS_LABELS,
   LINE_KIND_LABELS,
   UNIT_LABELS,
   type BoreMethod,
-  type ClearanceStatus,
-  type ConflictStatus,
   type DepthReference,
   type ExcavationMethod,
   type HoleStatus,
-  type LineKind,
-  type LineShape,
   type LineStatus,
   type LinearUnit,
   type PitKind,
   type PositionSource,
-  type QualityLevel,
   type Side,
   type StationStyle,
 } from '@shared/domain';
 import { computeClearances, findCrs, holePosition, holeTopElevation, lineSize, projectCrs } from '@shared/geometry';
-import type { ClearanceInput, ClearanceReport, HoleInput } from '@shared/geometry/types';
-import type { GridPoint, ProfilePoint } from '@shared/schemas/common';
+import type { BoreInput, ClearanceInput, ClearanceReport, LineInput } from '@shared/geometry/types';
+import type { GridPoint } from '@shared/schemas/common';
 import { UNIT_SYMBOLS } from '@shared/units';
-import { Bore } from '../bores/bore.entity';
-import { Pit } from '../bores/pit.entity';
-import { loadClearanceInput } from '../clearances/clearance-input';
-import { conflictFigures } from '../clearances/conflict-sync';
-import { Conflict } from '../conflicts/conflict.entity';
+import { clearanceInputFrom, loadProjectRows, rawNum, rawStr, type RawRow } from '../clearances/clearance-input';
+import { loadConflictRegister, type ConflictRegister } from '../conflicts/conflict-rows';
 import { Photo } from '../holes/photo.entity';
-import { TestHole } from '../holes/test-hole.entity';
-import { UtilityLine } from '../lines/utility-line.entity';
 import type { Project } from '../projects/project.entity';
 import type { User } from '../users/user.entity';
 
 /**
- * Everything an export reads, loaded once per export with plain rows (STACK.md: the query
- * builder is 5× faster than hydrated entities for big reads), and the clearances recomputed at
- * export time, so every file states the moment its figures were checked.
+ * Everything an export reads, loaded once per export: the project's rows read once (the
+ * clearance engine's input comes from the same rows), the clearances recomputed for the
+ * report-based files (stake-out, GeoJSON, test-hole sheets), and the conflict register as the
+ * Conflicts screen shows it (`loadConflictRegister`, the one builder of conflict rows).
  */
+
+/**
+ * Which clearance check a file's figures come from: recomputed for this file (stake-out,
+ * GeoJSON, sheets), or the conflict register's last check (conflict lists: the register is
+ * rechecked inside every write that can change a clearance, so its figures are those of the
+ * data as it stands; null when the register holds no conflict).
+ */
+export type ClearanceCheck = { basis: 'recomputed'; at: Date } | { basis: 'register'; at: Date | null };
 
 /** The project's reference frame and the moments every export header states. */
 export interface ExportFrame {
@@ -57,29 +56,20 @@ export interface ExportFrame {
   unitLabel: string;
   verticalDatum: string;
   stationStyle: StationStyle;
-  /** When the clearances in this export were computed (recomputed for the export). */
-  checkedAt: Date;
+  /** The clearance check the figures of this file come from. */
+  check: ClearanceCheck;
   exportedAt: Date;
   exportedBy: string;
 }
 
-export interface LineRow {
-  id: number;
-  label: string;
+/** A line: what the engine reads, and the register's other columns. */
+export type LineRow = LineInput & {
   owner: string;
   contactEmail: string | null;
-  kind: LineKind;
-  shape: LineShape;
-  diameter: number | null;
-  width: number | null;
-  height: number | null;
   material: string | null;
   status: LineStatus;
-  qualityLevel: QualityLevel;
-  path: GridPoint[];
-  recordDepth: number;
   notes: string | null;
-}
+};
 
 export interface HoleRow {
   id: number;
@@ -111,16 +101,8 @@ export interface HoleRow {
   notes: string | null;
 }
 
-export interface BoreRow {
-  id: number;
-  name: string;
-  method: BoreMethod;
-  alignment: GridPoint[];
-  beginStation: number;
-  profile: ProfilePoint[];
-  groundProfile: ProfilePoint[];
-  casingOd: number;
-}
+/** A bore: what the engine reads (without its pits) and its method. */
+export type BoreRow = Omit<BoreInput, 'pits'> & { method: BoreMethod };
 
 export interface PitRow {
   id: number;
@@ -139,47 +121,11 @@ export interface PhotoRow {
   caption: string | null;
 }
 
-/** One row of the conflict list (SPEC §8), with the figures of the export-time check. */
-export interface ConflictExportRow {
-  id: number;
-  /** The register's number, `C-<id>`. */
-  number: string;
-  boreId: number;
-  boreName: string;
-  /** The bore, and the pits the line conflicts with: `Bore 1; launch pit (enters)`. */
-  conflictWith: string;
-  computedStatus: ClearanceStatus;
-  status: ConflictStatus;
-  resolutionNote: string | null;
-  responsibleParty: string | null;
-  assigneeId: number | null;
-  assigneeName: string | null;
-  dueDate: Date | null;
-  foundAt: Date;
-  ownerNotifiedAt: Date | null;
-  answerDueAt: Date | null;
-  closedAt: Date | null;
-  notes: string | null;
-  line: LineRow;
-  /** Numbers of the test holes on the line. */
-  holes: string[];
-  relation: 'crossing' | 'near' | null;
-  station: number | null;
-  stationFrom: number | null;
-  stationTo: number | null;
-  offset: number | null;
-  side: Side | null;
-  lineTop: number | null;
-  governing: 'vertical' | 'horizontal' | null;
-  clearance: number | null;
-  required: number | null;
-  margin: number | null;
-  allowance: number | null;
-  clearDistance3d: number | null;
-}
-
 export interface ProjectExportData {
+  /** The frame of the report-based files: the clearances recomputed for this export. */
   frame: ExportFrame;
+  /** When `report` was computed. */
+  computedAt: Date;
   input: ClearanceInput;
   report: ClearanceReport;
   lines: LineRow[];
@@ -188,13 +134,10 @@ export interface ProjectExportData {
   bores: BoreRow[];
   pits: PitRow[];
   photos: PhotoRow[];
-  conflicts: ConflictExportRow[];
+  /** The conflict register (every row, unfiltered) and its last check. */
+  register: ConflictRegister;
 }
 
-type Raw = Record<string, unknown>;
-const json = <T>(v: unknown): T => (typeof v === 'string' ? (JSON.parse(v) as T) : (v as T));
-const num = (v: unknown): number | null => (v === null || v === undefined || v === '' ? null : Number(v));
-const str = (v: unknown): string | null => (v === null || v === undefined || v === '' ? null : String(v));
 function date(v: unknown): Date | null {
   if (v === null || v === undefined || v === '') return null;
   if (v instanceof Date) return v;
@@ -203,8 +146,10 @@ function date(v: unknown): Date | null {
   return Number.isNaN(d.getTime()) ? null : d;
 }
 
-/** The reference frame of a project, with the export's moments. */
-export function exportFrame(project: Project, user: Pick<User, 'name'>, checkedAt: Date): ExportFrame {
+const byText = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
+
+/** The reference frame of a project, with the check the file's figures come from and the moment it is made. */
+export function exportFrame(project: Project, user: Pick<User, 'name'>, check: ClearanceCheck, exportedAt = new Date()): ExportFrame {
   // The catalogue's name for a known code (the project's own definition is printed beside it where it matters).
   let crsName = findCrs(project.crsCode)?.name ?? project.crsCode;
   if (!findCrs(project.crsCode)) {
@@ -226,214 +171,124 @@ export function exportFrame(project: Project, user: Pick<User, 'name'>, checkedA
     unitLabel: UNIT_LABELS[project.unit],
     verticalDatum: project.verticalDatum,
     stationStyle: project.stationStyle,
-    checkedAt,
-    exportedAt: checkedAt,
+    check,
+    exportedAt,
     exportedBy: user.name,
   };
 }
 
-const FAILING: ReadonlySet<ClearanceStatus> = new Set(['overlap', 'conflict']);
+/** The frame of a conflict list: the same project frame, stating the register's last check. */
+export function conflictListFrame(frame: ExportFrame, register: Pick<ConflictRegister, 'checkedAt'>): ExportFrame {
+  return { ...frame, check: { basis: 'register', at: register.checkedAt } };
+}
 
-/** Load a project's data and recompute its clearances (the same computation as computeProjectReport, keeping its input). */
+/**
+ * Load a project's data for the exports: its rows read once, the clearances recomputed from them
+ * (the same computation as computeProjectReport, keeping its input) and the conflict register.
+ */
 export async function loadExportData(em: EntityManager, project: Project, user: Pick<User, 'name'>): Promise<ProjectExportData> {
-  const qb = <T extends object>(entity: new (...args: never[]) => T) => em.createQueryBuilder(entity);
-  const [input, lineRows, holeRows, boreRows, pitRows, photoRows, conflicts] = await Promise.all([
-    loadClearanceInput(em, project),
-    qb(UtilityLine).select('*').where({ project: project.id }).orderBy({ label: 'asc', id: 'asc' }).execute('all'),
-    qb(TestHole).select('*').where({ project: project.id }).orderBy({ number: 'asc', id: 'asc' }).execute('all'),
-    qb(Bore).select('*').where({ project: project.id }).orderBy({ name: 'asc', id: 'asc' }).execute('all'),
-    qb(Pit).select('*').where({ bore: { project: project.id } }).orderBy({ id: 'asc' }).execute('all'),
-    qb(Photo).select('*').where({ hole: { project: project.id } }).orderBy({ id: 'asc' }).execute('all'),
-    em.find(Conflict, { project }, { populate: ['assignee'], orderBy: { id: 'asc' } }),
+  const [rows, photoRows, register] = await Promise.all([
+    loadProjectRows(em, project),
+    em.createQueryBuilder(Photo).select('*').where({ hole: { project: project.id } }).orderBy({ id: 'asc' }).execute('all'),
+    loadConflictRegister(em, project),
   ]);
+  const input = clearanceInputFrom(project, rows);
   const report = computeClearances(input);
-  const frame = exportFrame(project, user, new Date());
+  const computedAt = new Date();
+  const frame = exportFrame(project, user, { basis: 'recomputed', at: computedAt }, computedAt);
 
-  const lines: LineRow[] = (lineRows as unknown as Raw[]).map((l) => ({
-    id: Number(l.id),
-    label: String(l.label),
-    owner: String(l.owner),
-    contactEmail: str(l.contactEmail),
-    kind: l.kind as LineKind,
-    shape: l.shape as LineShape,
-    diameter: num(l.diameter),
-    width: num(l.width),
-    height: num(l.height),
-    material: str(l.material),
-    status: l.status as LineStatus,
-    qualityLevel: l.qualityLevel as QualityLevel,
-    path: json<GridPoint[]>(l.path),
-    recordDepth: Number(l.recordDepth),
-    notes: str(l.notes),
-  }));
+  // input.lines[i] is rows.lines[i]: the engine's fields, plus the register's other columns.
+  const lines: LineRow[] = input.lines
+    .map((l, i) => {
+      const raw = rows.lines[i]!;
+      return { ...l, owner: String(raw.owner), contactEmail: rawStr(raw.contactEmail), material: rawStr(raw.material), status: raw.status as LineStatus, notes: rawStr(raw.notes) };
+    })
+    .sort((a, b) => byText(a.label, b.label) || a.id - b.id);
   const linesById = new Map(lines.map((l) => [l.id, l]));
-  const inputHoles = new Map(input.holes.map((h) => [h.id, h]));
 
-  const holes: HoleRow[] = (holeRows as unknown as Raw[]).map((h) => {
-    const id = Number(h.id);
-    const lineId = Number(h.line);
-    const engineHole = inputHoles.get(id);
-    const line = linesById.get(lineId);
-    let top: number | null = null;
-    if (engineHole && line) {
-      const size = lineSize(line);
-      if (size) {
-        const t = holeTopElevation(engineHole as HoleInput, line, size);
+  const holes: HoleRow[] = input.holes
+    .map((engineHole, i): HoleRow => {
+      const raw: RawRow = rows.holes[i]!;
+      const line = linesById.get(engineHole.lineId);
+      let top: number | null = null;
+      const size = line ? lineSize(line) : null;
+      if (line && size) {
+        const t = holeTopElevation(engineHole, line, size);
         if (!('code' in t)) top = t.top;
       }
-    }
-    const pos = engineHole ? holePosition(engineHole) : { x: Number(h.easting), y: Number(h.northing), surveyed: false };
-    return {
-      id,
-      number: String(h.number),
-      lineId,
-      status: h.status as HoleStatus,
-      positionSource: h.positionSource as PositionSource,
-      easting: pos.x,
-      northing: pos.y,
-      surveyed: pos.surveyed,
-      approximate: Boolean(h.approximate),
-      boreId: num(h.bore),
-      station: num(h.station),
-      offset: num(h.offset),
-      offsetSide: (str(h.offsetSide) as Side | null) ?? null,
-      groundElevation: num(h.surveyedGroundElevation) ?? num(h.groundElevation),
-      depthToTop: num(h.depthToTop),
-      depthReference: h.depthReference as DepthReference,
-      topElevation: top,
-      measuredSize: num(h.measuredSize),
-      material: str(h.material),
-      condition: str(h.condition),
-      method: (str(h.method) as ExcavationMethod | null) ?? null,
-      ticketNumber: str(h.ticketNumber),
-      crew: str(h.crew),
-      dugAt: date(h.dugAt),
-      notes: str(h.notes),
-    };
-  });
+      const pos = holePosition(engineHole);
+      return {
+        id: engineHole.id,
+        number: engineHole.number,
+        lineId: engineHole.lineId,
+        status: engineHole.status,
+        positionSource: raw.positionSource as PositionSource,
+        easting: pos.x,
+        northing: pos.y,
+        surveyed: pos.surveyed,
+        approximate: engineHole.approximate,
+        boreId: rawNum(raw.bore),
+        station: rawNum(raw.station),
+        offset: rawNum(raw.offset),
+        offsetSide: rawStr(raw.offsetSide) as Side | null,
+        groundElevation: engineHole.surveyedGroundElevation ?? engineHole.groundElevation,
+        depthToTop: engineHole.depthToTop,
+        depthReference: engineHole.depthReference,
+        topElevation: top,
+        measuredSize: engineHole.measuredSize ?? null,
+        material: rawStr(raw.material),
+        condition: rawStr(raw.condition),
+        method: rawStr(raw.method) as ExcavationMethod | null,
+        ticketNumber: rawStr(raw.ticketNumber),
+        crew: rawStr(raw.crew),
+        dugAt: date(raw.dugAt),
+        notes: rawStr(raw.notes),
+      };
+    })
+    .sort((a, b) => byText(a.number, b.number) || a.id - b.id);
 
-  const bores: BoreRow[] = (boreRows as unknown as Raw[]).map((b) => ({
-    id: Number(b.id),
-    name: String(b.name),
-    method: b.method as BoreMethod,
-    alignment: json<GridPoint[]>(b.alignment),
-    beginStation: Number(b.beginStation),
-    profile: json<ProfilePoint[]>(b.profile),
-    groundProfile: json<ProfilePoint[]>(b.groundProfile) ?? [],
-    casingOd: Number(b.casingOd),
-  }));
-  const boreName = new Map(bores.map((b) => [b.id, b.name]));
-
-  const pits: PitRow[] = (pitRows as unknown as Raw[]).map((p) => ({
-    id: Number(p.id),
-    boreId: Number(p.bore),
-    kind: p.kind as PitKind,
-    footprint: json<GridPoint[]>(p.footprint),
-    bottomElevation: Number(p.bottomElevation),
-  }));
+  const bores: BoreRow[] = input.bores
+    .map(({ pits: _pits, ...b }, i) => ({ ...b, groundProfile: b.groundProfile ?? [], method: rows.bores[i]!.method as BoreMethod }))
+    .sort((a, b) => byText(a.name, b.name) || a.id - b.id);
+  const pits: PitRow[] = input.bores.flatMap((b) => (b.pits ?? []).map((p) => ({ ...p, boreId: b.id }))).sort((a, b) => a.id - b.id);
 
   // Photos still being processed have no upright copy yet: the file as uploaded stands in.
-  const photos: PhotoRow[] = (photoRows as unknown as Raw[]).map((p) => ({
+  const photos: PhotoRow[] = (photoRows as unknown as RawRow[]).map((p) => ({
     id: Number(p.id),
     holeId: Number(p.hole),
-    key: str(p.displayKey) ?? String(p.fileKey),
+    key: rawStr(p.displayKey) ?? String(p.fileKey),
     mimeType: String(p.mimeType),
-    caption: str(p.caption),
+    caption: rawStr(p.caption),
   }));
 
-  const holesByLine = new Map<number, string[]>();
-  for (const h of holes) {
-    const list = holesByLine.get(h.lineId) ?? [];
-    if (!list.includes(h.number)) list.push(h.number);
-    holesByLine.set(h.lineId, list);
-  }
-
-  const rows: ConflictExportRow[] = [];
-  for (const c of conflicts) {
-    const line = linesById.get(c.line.id);
-    if (!line) continue;
-    const boreReport = report.bores.find((b) => b.boreId === c.bore.id);
-    let computedStatus = c.computedStatus;
-    let figures = c.figures;
-    if (boreReport?.computed) {
-      const lc = boreReport.lines.find((l) => l.lineId === line.id) ?? null;
-      const pitsOfLine = boreReport.pitConflicts.filter((p) => p.lineId === line.id);
-      // The same rule as the register's sync: a failing line status, else a pit conflict, else the line's status.
-      computedStatus = lc && FAILING.has(lc.status) ? lc.status : pitsOfLine.length > 0 ? 'conflict' : (lc?.status ?? 'clear');
-      figures = conflictFigures(lc, pitsOfLine);
-    }
-    const f = figures as {
-      relation?: 'crossing' | 'near' | null;
-      station?: number | null;
-      stationRange?: [number, number] | null;
-      offset?: number | null;
-      side?: Side | null;
-      lineTop?: number | null;
-      clearance?: number | null;
-      required?: number | null;
-      margin?: number | null;
-      allowance?: number | null;
-      clearDistance3d?: number | null;
-      governing?: 'vertical' | 'horizontal' | null;
-      pits?: { pitId: number; kind: PitKind; enters: boolean }[];
-    };
-    const pitText = (f.pits ?? []).map((p) => `${p.kind} pit${p.enters ? ' (line enters it)' : ' (line near it)'}`);
-    const name = boreName.get(c.bore.id) ?? `Bore ${c.bore.id}`;
-    rows.push({
-      id: c.id,
-      number: `C-${c.id}`,
-      boreId: c.bore.id,
-      boreName: name,
-      conflictWith: [name, ...pitText].join('; '),
-      computedStatus: CLEARANCE_STATUSES.includes(computedStatus) ? computedStatus : c.computedStatus,
-      status: c.status,
-      resolutionNote: c.resolutionNote ?? null,
-      responsibleParty: c.responsibleParty ?? null,
-      assigneeId: c.assignee?.id ?? null,
-      assigneeName: c.assignee?.name ?? null,
-      dueDate: c.dueDate ?? null,
-      foundAt: c.createdAt,
-      ownerNotifiedAt: c.ownerNotifiedAt ?? null,
-      answerDueAt: c.answerDueAt ?? null,
-      closedAt: c.closedAt ?? null,
-      notes: c.notes ?? null,
-      line,
-      holes: holesByLine.get(line.id) ?? [],
-      relation: f.relation ?? null,
-      station: f.station ?? null,
-      stationFrom: f.stationRange?.[0] ?? null,
-      stationTo: f.stationRange?.[1] ?? null,
-      offset: f.offset ?? null,
-      side: f.side ?? null,
-      lineTop: f.lineTop ?? null,
-      governing: f.governing ?? null,
-      clearance: f.clearance ?? null,
-      required: f.required ?? null,
-      margin: f.margin ?? null,
-      allowance: f.allowance ?? null,
-      clearDistance3d: f.clearDistance3d ?? null,
-    });
-  }
-
-  return { frame, input, report, lines, linesById, holes, bores, pits, photos, conflicts: rows };
+  return { frame, computedAt, input, report, lines, linesById, holes, bores, pits, photos, register };
 }
 
 /** The conflict filter of the register (the same as the Conflicts screen's). */
 export type ConflictFilterInput = ConflictFilter;
 
-/** True when a row passes the filter: the register's own rule (shared/conflicts.ts). */
-export function matchesFilter(row: ConflictExportRow, filter: ConflictFilterInput): boolean {
-  return matchesFilterable(row, filter);
+/** Names the filter words use: bores and assignees by id. */
+export interface FilterNames {
+  bores: Map<number, string>;
+  users: Map<number, string>;
+}
+
+/** Bore and assignee names from conflict rows (and from the project's bores, when known). */
+export function filterNames(rows: ConflictRowDto[], bores: Pick<BoreRow, 'id' | 'name'>[] = []): FilterNames {
+  return {
+    bores: new Map([...rows.map((r): [number, string] => [r.bore.id, r.bore.name]), ...bores.map((b): [number, string] => [b.id, b.name])]),
+    users: new Map(rows.filter((r) => r.assigneeId != null).map((r): [number, string] => [r.assigneeId!, r.assigneeName ?? ''])),
+  };
 }
 
 /** The filter in words for a header: `status = Open, In review; kind = Gas`, or `none (everything)`. */
-export function describeFilter(filter: ConflictFilterInput, data: Pick<ProjectExportData, 'bores'>, users?: Map<number, string>): string {
+export function describeFilter(filter: ConflictFilterInput, names: FilterNames): string {
   const parts: string[] = [];
   if (filter.status?.length) parts.push(`status = ${filter.status.map((s) => CONFLICT_STATUS_LABELS[s]).join(', ')}`);
   if (filter.computedStatus?.length) parts.push(`last check = ${filter.computedStatus.join(', ')}`);
-  if (filter.boreId?.length) parts.push(`bore = ${filter.boreId.map((id) => data.bores.find((b) => b.id === id)?.name ?? `#${id}`).join(', ')}`);
+  if (filter.boreId?.length) parts.push(`bore = ${filter.boreId.map((id) => names.bores.get(id) ?? `#${id}`).join(', ')}`);
   if (filter.kind?.length) parts.push(`kind = ${filter.kind.map((k) => LINE_KIND_LABELS[k]).join(', ')}`);
-  if (filter.assignee?.length) parts.push(`assignee = ${filter.assignee.map((a) => (a === 'none' ? 'unassigned' : (users?.get(a) ?? `#${a}`))).join(', ')}`);
+  if (filter.assignee?.length) parts.push(`assignee = ${filter.assignee.map((a) => (a === 'none' ? 'unassigned' : (names.users.get(a) ?? `#${a}`))).join(', ')}`);
   if (filter.q?.trim()) parts.push(`text contains "${filter.q.trim()}"`);
   return parts.length ? parts.join('; ') : 'none (everything)';
 }

@@ -2,7 +2,7 @@ import { SAFETY_CAUTIONS } from '@shared/cautions';
 import { LINE_KIND_LABELS, type LinearUnit } from '@shared/domain';
 import { formatStation } from '@shared/geometry';
 import { convertLength } from '@shared/units';
-import type { ExportFrame, LineRow } from './export-data';
+import type { ClearanceCheck, ExportFrame, LineRow } from './export-data';
 
 /** `2026-12-01T14:03:09Z`: UTC, to the second. */
 export function isoSeconds(d: Date): string {
@@ -24,6 +24,18 @@ export const DESIGN_AID_CAUTION = (() => {
 export const FIELD_CAUTIONS: string[] = SAFETY_CAUTIONS.map((c) => `${c.lead} ${c.text}`);
 
 /**
+ * When the figures of a file were checked, in words for its header (no commas: a CSV header
+ * line stays one cell). `short` for running heads.
+ */
+export function checkText(check: ClearanceCheck, form: 'full' | 'short' = 'full'): string {
+  if (check.basis === 'recomputed') return form === 'short' ? isoSeconds(check.at) : `${isoSeconds(check.at)} (UTC; recomputed when this file was made)`;
+  if (!check.at) return form === 'short' ? 'never (no conflict on the register)' : 'no conflict on the register (every change that can move a clearance rechecks it)';
+  return form === 'short'
+    ? `${isoSeconds(check.at)} (the register's last check)`
+    : `${isoSeconds(check.at)} (UTC; the conflict register's last check: every change that can move a clearance reruns it)`;
+}
+
+/**
  * The header block every export starts with (SPEC: CRS, unit, vertical datum and the time of
  * the last clearance check in every export header), as label/value pairs.
  */
@@ -34,7 +46,7 @@ export function headerBlock(frame: ExportFrame, title: string, extra: [string, s
     ['CRS', `${frame.crsCode} ${frame.crsName}`],
     ['Unit', `${frame.unitLabel} (${frame.unitSymbol}) for all coordinates and lengths and elevations`],
     ['Vertical datum', frame.verticalDatum],
-    ['Clearances checked', `${isoSeconds(frame.checkedAt)} (UTC; recomputed when this file was made)`],
+    ['Clearances checked', checkText(frame.check)],
     ['Exported', `${isoSeconds(frame.exportedAt)} by ${frame.exportedBy}`],
     ...extra,
     ['Caution', DESIGN_AID_CAUTION],

@@ -15,13 +15,18 @@ import { BundleJobs, presentJob } from './bundle-jobs';
 import { loadHoleSheet, renderHoleSheets } from '../holes/hole-sheet';
 import { TestHole } from '../holes/test-hole.entity';
 import { Project } from '../projects/project.entity';
-import { conflictCsv, conflictPdf, conflictXlsx, rowsLine } from './conflict-list';
-import { describeFilter, loadExportData, matchesFilter, type ConflictFilterInput, type ProjectExportData } from './export-data';
+import type { EntityManager } from '@mikro-orm/sqlite';
+import type { ConflictExportQuery } from '@shared/schemas/export';
+import type { User } from '../users/user.entity';
+import { Bore } from '../bores/bore.entity';
+import { loadConflictRegister } from '../conflicts/conflict-rows';
+import { conflictCsv, conflictList, conflictPdf, conflictXlsx } from './conflict-list';
+import { exportFrame, filterNames, loadExportData } from './export-data';
 import { exportFileName, isoSeconds } from './export-header';
 import { projectGeojson } from './geojson';
 import { stakeoutCsv, stakeoutDxf, stakeoutPoints } from './stakeout';
 
-/** Send a file for download (never cached: every export recomputes its clearances). */
+/** Send a file for download (never cached: every export reads the data as it stands). */
 function sendFile(res: Response, body: string | Buffer, contentType: string, fileName: string): void {
   res.setHeader('Content-Type', contentType);
   res.setHeader('Content-Disposition', `attachment; filename="${fileName}"`);
@@ -29,17 +34,27 @@ function sendFile(res: Response, body: string | Buffer, contentType: string, fil
   res.send(typeof body === 'string' ? Buffer.from(body, 'utf8') : body);
 }
 
-function conflictRows(data: ProjectExportData, filter: ConflictFilterInput) {
-  const rows = data.conflicts.filter((r) => matchesFilter(r, filter));
-  const users = new Map(data.conflicts.filter((r) => r.assigneeId != null).map((r) => [r.assigneeId!, r.assigneeName ?? '']));
-  return { rows, info: rowsLine(rows.length, data.conflicts.length, describeFilter(filter, data, users)) };
+/**
+ * A conflict list as the register holds it (no recompute: the register is rechecked inside every
+ * write that can change a clearance, and the header states that check's time). Three queries:
+ * the register's two and, when the filter names bores, their names.
+ */
+async function conflictListFor(em: EntityManager, project: Project, user: Pick<User, 'name'>, query: ConflictExportQuery) {
+  const { ids, ...filter } = query;
+  const [register, bores] = await Promise.all([
+    loadConflictRegister(em, project),
+    filter.boreId?.length ? em.find(Bore, { project, id: { $in: filter.boreId } }, { fields: ['id', 'name'] }) : Promise.resolve([]),
+  ]);
+  const frame = exportFrame(project, user, { basis: 'register', at: register.checkedAt });
+  return { frame, ids: ids ?? 'plain', ...conflictList(register, filter, filterNames(register.rows, bores)) };
 }
 
 /**
  * Exports for every role (access `export.read`): the conflict list as CSV, XLSX and PDF, the
  * stake-out list as a point file and as DXF, GeoJSON in WGS 84, and the project zip prepared as a
- * job with progress. Every export recomputes the clearances and states that time, the CRS, the
- * unit and the vertical datum in its header.
+ * job with progress. Conflict lists are the register's rows and state its last check; the
+ * report-based files recompute the clearances and state that time; every header gives the CRS,
+ * the unit and the vertical datum.
  */
 export function exportRoutes(registry: RouteMeta[], config: AppConfig, storage: FileStorage): ApiRouter {
   const api = new ApiRouter('/api/projects/:projectId/exports', registry, config);
@@ -50,13 +65,13 @@ export function exportRoutes(registry: RouteMeta[], config: AppConfig, storage: 
     const data = await loadExportData(em, project, user);
     const points = stakeoutPoints(data);
     return {
-      checkedAt: data.frame.checkedAt.toISOString(),
+      checkedAt: data.computedAt.toISOString(),
       crsCode: data.frame.crsCode,
       crsName: data.frame.crsName,
       unit: data.frame.unit,
       verticalDatum: data.frame.verticalDatum,
       counts: {
-        conflicts: data.conflicts.length,
+        conflicts: data.register.rows.length,
         lines: data.lines.length,
         holes: data.holes.length,
         bores: data.bores.length,
@@ -69,24 +84,18 @@ export function exportRoutes(registry: RouteMeta[], config: AppConfig, storage: 
   });
 
   api.get('/conflicts.csv', { access: 'export.read', query: conflictExportQuerySchema }, async ({ em, project, user, query, res }) => {
-    const data = await loadExportData(em, project, user);
-    const { ids, ...filter } = query;
-    const { rows, info } = conflictRows(data, filter);
-    sendFile(res, conflictCsv(data.frame, rows, info, ids ?? 'plain'), 'text/csv; charset=utf-8', exportFileName(data.frame, 'conflicts', 'csv'));
+    const { frame, rows, info, ids } = await conflictListFor(em, project, user, query);
+    sendFile(res, conflictCsv(frame, rows, info, ids), 'text/csv; charset=utf-8', exportFileName(frame, 'conflicts', 'csv'));
   });
 
   api.get('/conflicts.xlsx', { access: 'export.read', query: conflictExportQuerySchema }, async ({ em, project, user, query, res }) => {
-    const data = await loadExportData(em, project, user);
-    const { ids: _ids, ...filter } = query;
-    const { rows, info } = conflictRows(data, filter);
-    sendFile(res, await conflictXlsx(data.frame, rows, info), 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet', exportFileName(data.frame, 'conflicts', 'xlsx'));
+    const { frame, rows, info } = await conflictListFor(em, project, user, query);
+    sendFile(res, await conflictXlsx(frame, rows, info), 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet', exportFileName(frame, 'conflicts', 'xlsx'));
   });
 
   api.get('/conflicts.pdf', { access: 'export.read', query: conflictExportQuerySchema }, async ({ em, project, user, query, res }) => {
-    const data = await loadExportData(em, project, user);
-    const { ids: _ids, ...filter } = query;
-    const { rows, info } = conflictRows(data, filter);
-    sendFile(res, await conflictPdf(data.frame, rows, info), 'application/pdf', exportFileName(data.frame, 'conflicts', 'pdf'));
+    const { frame, rows, info } = await conflictListFor(em, project, user, query);
+    sendFile(res, await conflictPdf(frame, rows, info), 'application/pdf', exportFileName(frame, 'conflicts', 'pdf'));
   });
 
   api.get('/stakeout.csv', { access: 'export.read', query: stakeoutExportQuerySchema }, async ({ em, project, user, query, res }) => {
@@ -119,7 +128,7 @@ export function exportRoutes(registry: RouteMeta[], config: AppConfig, storage: 
       sheetProject ??= await jobEm.findOneOrFail(Project, project.id);
       const hole = await jobEm.findOneOrFail(TestHole, { id: holeId, project: sheetProject }, { populate: ['line', 'bore', 'createdBy'] });
       try {
-        return await renderHoleSheets([await loadHoleSheet(jobEm, sheetProject, hole, storage, { report: data.report, checkedAt: data.frame.checkedAt })]);
+        return await renderHoleSheets([await loadHoleSheet(jobEm, sheetProject, hole, storage, { report: data.report, checkedAt: data.computedAt })]);
       } catch (err) {
         req.log?.warn({ err, holeId }, 'test-hole sheet for the zip failed; the README lists it');
         throw err;
@@ -129,7 +138,7 @@ export function exportRoutes(registry: RouteMeta[], config: AppConfig, storage: 
       { projectId: project.id, userId: user.id },
       fileName,
       (report) => buildBundle(data, storage, { filter: body.filter ?? {}, photos: body.photos ?? true, sheet }, report),
-      (err) => req.log?.error({ err, checkedAt: isoSeconds(data.frame.checkedAt) }, 'export zip failed'),
+      (err) => req.log?.error({ err, checkedAt: isoSeconds(data.computedAt) }, 'export zip failed'),
     );
     status(202);
     return presentJob(job, base(project.id));

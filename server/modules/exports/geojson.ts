@@ -167,7 +167,7 @@ function metadata(frame: ExportFrame, layers: GeojsonLayer[], filter: GeojsonFil
     gridValues: `gridCoordinates ([easting, northing] pairs) and gridEasting/gridNorthing in properties are in ${frame.crsCode}, ${frame.unitLabel}`,
     elevations: `groundElevation, topElevation and profile elevations are ${frame.unitLabel} on ${frame.verticalDatum}; positions carry no third value`,
     datumNote: 'the grid datum is taken equal to WGS 84 for the conversion where the definition gives no shift (NAD83: about 1 m); survey work uses the grid values',
-    clearancesCheckedAt: isoSeconds(frame.checkedAt),
+    clearancesCheckedAt: frame.check.at ? isoSeconds(frame.check.at) : null,
     exportedAt: isoSeconds(frame.exportedAt),
     exportedBy: frame.exportedBy,
     layers,

@@ -7,8 +7,10 @@ import { badRequest } from '../../errors';
 import { logActivity } from '../activity/activity.service';
 import { ConflictEvent } from '../conflicts/conflict-event.entity';
 import { Conflict } from '../conflicts/conflict.entity';
-import { conflictListCsv, lastCheck } from '../conflicts/conflict-csv';
-import { listConflictRows } from '../conflicts/conflict-rows';
+import { loadConflictRegister } from '../conflicts/conflict-rows';
+import { conflictCsv, conflictList } from '../exports/conflict-list';
+import { exportFrame, filterNames } from '../exports/export-data';
+import { slug } from '../exports/export-header';
 import type { Project } from '../projects/project.entity';
 import { User } from '../users/user.entity';
 import { MAIL_CAUTION, textDateTime, textLength, textStation } from './format';
@@ -18,31 +20,33 @@ const UNIT_NAMES = { m: 'metres', ft: 'international feet', usft: 'US survey fee
 
 interface Planned extends Omit<OwnerMailPlanDto, 'outboxId'> {
   rows: ConflictRowDto[];
+  /** The header's Rows line of the attachment: the filter in words, with the contact. */
+  info: [string, string];
 }
 
-/** A file-name part: lower-case words joined by hyphens, whole words up to about 24 characters. */
-function slug(text: string): string {
-  const words = text.toLowerCase().split(/[^a-z0-9]+/).filter(Boolean);
-  let out = '';
-  for (const w of words) {
-    if (out && out.length + 1 + w.length > 24) break;
-    out = out ? `${out}-${w}` : w.slice(0, 24);
-  }
-  return out || 'list';
-}
+const contactOf = (row: ConflictRowDto) => row.line.contactEmail?.trim().toLowerCase() ?? '';
 
 /**
  * Who gets what: the conflicts in the chosen statuses grouped by their line's contact address
  * (one message per address, covering every owner that address answers for). Lines without a
- * contact are reported as skipped, by owner.
+ * contact are reported as skipped, by owner. The rows are the register's (`loadConflictRegister`),
+ * and each attachment is the conflict list CSV of the exports for that status filter and contact,
+ * stating the register's last check.
  */
-export async function planOwnerMail(em: EntityManager, project: Project, input: MailOwnersInput, now: Date): Promise<{ plans: Planned[]; skipped: MailOwnersResultDto['skipped'] }> {
+export async function planOwnerMail(
+  em: EntityManager,
+  project: Project,
+  input: MailOwnersInput,
+  now: Date,
+): Promise<{ plans: Planned[]; skipped: MailOwnersResultDto['skipped']; checkedAt: Date | null }> {
   const statuses = input.statuses ?? [...ACTIVE_CONFLICT_STATUSES];
-  const rows = await listConflictRows(em, project, { status: statuses });
+  const register = await loadConflictRegister(em, project);
+  const names = filterNames(register.rows);
+  const { rows } = conflictList(register, { status: statuses }, names);
   const byContact = new Map<string, ConflictRowDto[]>();
   const noContact = new Map<string, ConflictRowDto[]>();
   for (const row of rows) {
-    const to = row.line.contactEmail?.trim().toLowerCase();
+    const to = contactOf(row);
     if (to) byContact.set(to, [...(byContact.get(to) ?? []), row]);
     else noContact.set(row.line.owner, [...(noContact.get(row.line.owner) ?? []), row]);
   }
@@ -56,6 +60,7 @@ export async function planOwnerMail(em: EntityManager, project: Project, input: 
     .filter(([to]) => !wanted || wanted.includes(to))
     .sort(([a], [b]) => a.localeCompare(b))
     .map(([to, list]) => {
+      const { info } = conflictList(register, { status: statuses }, names, { keep: (r) => contactOf(r) === to, words: `owner contact = ${to}` });
       const owners = [...new Set(list.map((r) => r.line.owner))].sort();
       const lines = [...new Map(list.map((r) => [r.line.id, { id: r.line.id, label: r.line.label }])).values()].sort((a, b) => a.label.localeCompare(b.label));
       return {
@@ -66,6 +71,7 @@ export async function planOwnerMail(em: EntityManager, project: Project, input: 
         subject: `${project.name}: ${list.length} conflict${list.length === 1 ? '' : 's'} with ${owners.join(', ')} lines`,
         attachmentName: `conflicts-${slug(project.name)}-${slug(owners[0] ?? to)}-${day}.csv`,
         rows: list,
+        info,
       };
     });
   const skipped = [...noContact.entries()].map(([owner, list]) => ({
@@ -74,10 +80,10 @@ export async function planOwnerMail(em: EntityManager, project: Project, input: 
     conflicts: list.map((r) => r.number),
     reason: 'No contact e-mail on the line. Add one under Lines to include this owner.',
   }));
-  return { plans, skipped };
+  return { plans, skipped, checkedAt: register.checkedAt };
 }
 
-function messageText(project: Project, plan: Planned, sender: User, note: string | null | undefined): string {
+function messageText(project: Project, plan: Planned, sender: User, note: string | null | undefined, checkedAt: Date | null): string {
   const u = project.unit;
   const lines = plan.rows.map(
     (r) =>
@@ -93,7 +99,7 @@ function messageText(project: Project, plan: Planned, sender: User, note: string
     '',
     ...lines,
     '',
-    `Grid ${project.crsCode}; lengths in ${UNIT_NAMES[u]}; elevations ${project.verticalDatum}; last clearance check ${textDateTime(lastCheck(plan.rows))}.`,
+    `Grid ${project.crsCode}; lengths in ${UNIT_NAMES[u]}; elevations ${project.verticalDatum}; last clearance check ${textDateTime(checkedAt)}.`,
     '',
     `Please reply to ${sender.name} <${sender.email}> with your requirements, a waiver, or comments.`,
     '',
@@ -108,24 +114,24 @@ function messageText(project: Project, plan: Planned, sender: User, note: string
  * told" date where unset and write an `owner_mailed` history entry, all in one transaction.
  */
 export async function sendOwnerMail(em: EntityManager, project: Project, user: User, input: MailOwnersInput, now = new Date()): Promise<MailOwnersResultDto> {
-  const { plans, skipped } = await planOwnerMail(em, project, input, now);
+  const { plans, skipped, checkedAt } = await planOwnerMail(em, project, input, now);
   if (input.mode === 'preview') {
-    return { mode: 'preview', recipients: plans.map(({ rows: _rows, ...p }) => ({ ...p, outboxId: null })), skipped };
+    return { mode: 'preview', recipients: plans.map(({ rows: _rows, info: _info, ...p }) => ({ ...p, outboxId: null })), skipped };
   }
+  const frame = exportFrame(project, user, { basis: 'register', at: checkedAt }, now);
   if (plans.length === 0) throw badRequest('There is nobody to send to: no conflict in the chosen statuses is on a line with a contact e-mail.');
   return em.transactional(async (tem) => {
     const recipients: OwnerMailPlanDto[] = [];
     for (const plan of plans) {
-      const frame = { projectName: project.name, crsCode: project.crsCode, unit: project.unit, verticalDatum: project.verticalDatum, stationStyle: project.stationStyle, checkedAt: lastCheck(plan.rows) };
       const message = await enqueueMail(tem, {
         project,
         purpose: 'owner_conflicts',
         to: plan.to,
         subject: plan.subject,
-        text: messageText(project, plan, user, input.message),
+        text: messageText(project, plan, user, input.message, checkedAt),
         replyTo: user.email,
         createdBy: user,
-        attachments: [{ filename: plan.attachmentName, contentType: 'text/csv; charset=utf-8', content: Buffer.from(conflictListCsv(plan.rows, frame), 'utf8') }],
+        attachments: [{ filename: plan.attachmentName, contentType: 'text/csv; charset=utf-8', content: Buffer.from(conflictCsv(frame, plan.rows, plan.info), 'utf8') }],
       });
       await tem.flush();
       const conflicts = await tem.find(Conflict, { id: { $in: plan.rows.map((r) => r.id) }, project });
@@ -133,7 +139,7 @@ export async function sendOwnerMail(em: EntityManager, project: Project, user: U
         if (!c.ownerNotifiedAt) c.ownerNotifiedAt = now;
         tem.persist(new ConflictEvent(c, 'owner_mailed', `Conflict list e-mailed to ${plan.to}.`, { to: plan.to, outboxId: message!.id, attachment: plan.attachmentName }, tem.getReference(User, user.id)));
       }
-      const { rows: _rows, ...dto } = plan;
+      const { rows: _rows, info: _info, ...dto } = plan;
       recipients.push({ ...dto, outboxId: message!.id });
     }
     logActivity(tem, {
