@@ -4,7 +4,7 @@
  * clearance engine in the browser; Save writes through the API with the version the designer
  * started from, Cancel puts everything back.
  */
-import { useEffect, useState } from 'react';
+import { useEffect, useState, type ChangeEvent } from 'react';
 import type { LinearUnit, StationStyle } from '@shared/domain';
 import type { BoreDto } from '@shared/api';
 import { formatStation, parseStation, type BoreReport, type ShiftWindow } from '@shared/geometry';
@@ -12,6 +12,7 @@ import { UNIT_SYMBOLS } from '@shared/units';
 import { Alert, ProblemAlert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { NumberField } from '@/components/ui/field';
+import { FormActions } from '@/components/ui/form';
 import { formatNumber } from '@/lib/format';
 import { overallGrade, round, withOverallGrade } from '../lib/live';
 import { STATUS_LABELS } from '../lib/styles';
@@ -35,16 +36,6 @@ export interface BoreEditorProps {
   onKeepMine: () => void;
 }
 
-/** A number input that keeps what is typed until it parses, then reports the value. */
-function useNumberText(value: number, decimals: number) {
-  const [text, setText] = useState(() => formatNumber(value, decimals).replace(/,/g, ''));
-  const [focused, setFocused] = useState(false);
-  useEffect(() => {
-    if (!focused) setText(formatNumber(value, decimals).replace(/,/g, ''));
-  }, [value, decimals, focused]);
-  return { text, setText, focused, setFocused };
-}
-
 function parseNumber(text: string): number | null {
   const t = text.trim().replace(/\u2212/g, '-');
   if (!/^[-+]?(\d+(\.\d*)?|\.\d+)$/.test(t)) return null;
@@ -52,40 +43,64 @@ function parseNumber(text: string): number | null {
   return Number.isFinite(v) ? v : null;
 }
 
+/**
+ * A number input that keeps what is typed until it parses and passes `problem`, then reports
+ * the value through `commit`; while it has focus, outside changes of `value` do not overwrite
+ * the text. Gives the input's props and the problem with what is typed, if any.
+ */
+function useNumberInput(value: number, decimals: number, problem: (v: number | null) => string | undefined, commit: (v: number) => void) {
+  const [text, setText] = useState(() => formatNumber(value, decimals).replace(/,/g, ''));
+  const [focused, setFocused] = useState(false);
+  const [error, setError] = useState<string | undefined>();
+  useEffect(() => {
+    if (!focused) setText(formatNumber(value, decimals).replace(/,/g, ''));
+  }, [value, decimals, focused]);
+  const inputProps = {
+    value: text,
+    onFocus: () => setFocused(true),
+    onBlur: () => setFocused(false),
+    onChange: (e: ChangeEvent<HTMLInputElement>) => {
+      setText(e.target.value);
+      const v = parseNumber(e.target.value);
+      const message = problem(v);
+      setError(message);
+      if (message === undefined && v !== null) commit(v);
+    },
+  };
+  return { error, inputProps };
+}
+
+/** The profile in words for the stale-save choice: "10+00 @ 425.50, …". */
+function profileText(profile: BoreDto['profile'], stationStyle: StationStyle): string {
+  return profile.map((p) => `${formatStation(p.station, stationStyle)} @ ${formatNumber(p.elevation, 2)}`).join(', ');
+}
+
 function GradeField({ draft, onChange }: { draft: BoreDto; onChange: (b: BoreDto) => void }) {
   const grade = overallGrade(draft.profile);
-  const f = useNumberText(round(grade, 3), 3);
-  const [error, setError] = useState<string | undefined>();
+  const { error, inputProps } = useNumberInput(
+    round(grade, 3),
+    3,
+    (v) => (v === null ? 'must be a number, e.g. -0.5' : Math.abs(v) > 60 ? 'must be between -60 and 60 %' : undefined),
+    (v) => onChange({ ...draft, profile: withOverallGrade(draft.profile, v) }),
+  );
   return (
     <NumberField
       label="Grade"
       unit="%"
       hint="Overall grade, first to last profile point; changing it turns the profile about its first point. Negative falls up-station."
       error={error ? { message: error } : undefined}
-      value={f.text}
-      onFocus={() => f.setFocused(true)}
-      onBlur={() => f.setFocused(false)}
-      onChange={(e) => {
-        f.setText(e.target.value);
-        const v = parseNumber(e.target.value);
-        if (v === null) {
-          setError('must be a number, e.g. -0.5');
-          return;
-        }
-        if (Math.abs(v) > 60) {
-          setError('must be between -60 and 60 %');
-          return;
-        }
-        setError(undefined);
-        onChange({ ...draft, profile: withOverallGrade(draft.profile, v) });
-      }}
+      {...inputProps}
     />
   );
 }
 
 function CasingField({ draft, unit, onChange }: { draft: BoreDto; unit: LinearUnit; onChange: (b: BoreDto) => void }) {
-  const f = useNumberText(draft.casingOd, 3);
-  const [error, setError] = useState<string | undefined>();
+  const { error, inputProps } = useNumberInput(
+    draft.casingOd,
+    3,
+    (v) => (v === null || v <= 0 ? 'must be a number greater than zero' : undefined),
+    (v) => onChange({ ...draft, casingOd: v }),
+  );
   const usual = unit === 'm' ? `${formatNumber(draft.casingOd * 1000, 0)} mm` : `${formatNumber(draft.casingOd * 12, 1)} in`;
   return (
     <NumberField
@@ -93,19 +108,7 @@ function CasingField({ draft, unit, onChange }: { draft: BoreDto; unit: LinearUn
       unit={UNIT_SYMBOLS[unit]}
       hint={`${usual}; clearances are edge to edge from the casing (or reamed hole) outside.`}
       error={error ? { message: error } : undefined}
-      value={f.text}
-      onFocus={() => f.setFocused(true)}
-      onBlur={() => f.setFocused(false)}
-      onChange={(e) => {
-        f.setText(e.target.value);
-        const v = parseNumber(e.target.value);
-        if (v === null || v <= 0) {
-          setError('must be a number greater than zero');
-          return;
-        }
-        setError(undefined);
-        onChange({ ...draft, casingOd: v });
-      }}
+      {...inputProps}
     />
   );
 }
@@ -114,8 +117,12 @@ function PointRow({ index, draft, unit, stationStyle, onChange }: { index: numbe
   const p = draft.profile[index]!;
   const [stationText, setStationText] = useState(() => formatStation(p.station, stationStyle));
   const [stationError, setStationError] = useState<string | null>(null);
-  const elev = useNumberText(p.elevation, 2);
-  const [elevError, setElevError] = useState<string | null>(null);
+  const elev = useNumberInput(
+    p.elevation,
+    2,
+    (v) => (v === null ? 'must be a number' : undefined),
+    (v) => setPoint(p.station, v),
+  );
   useEffect(() => setStationText(formatStation(p.station, stationStyle)), [p.station, stationStyle]);
   const last = draft.profile.length - 1;
   const ends = index === 0 || index === last;
@@ -157,21 +164,9 @@ function PointRow({ index, draft, unit, stationStyle, onChange }: { index: numbe
           aria-label={`Elevation of profile point ${index + 1}`}
           inputMode="decimal"
           className="min-h-10 w-24 rounded-md border border-ink-300 px-2 text-sm tabular"
-          value={elev.text}
-          onFocus={() => elev.setFocused(true)}
-          onBlur={() => elev.setFocused(false)}
-          onChange={(e) => {
-            elev.setText(e.target.value);
-            const v = parseNumber(e.target.value);
-            if (v === null) {
-              setElevError('must be a number');
-              return;
-            }
-            setElevError(null);
-            setPoint(p.station, v);
-          }}
+          {...elev.inputProps}
         />
-        {elevError && <p className="mt-0.5 text-xs text-danger-700">Elevation: {elevError}</p>}
+        {elev.error && <p className="mt-0.5 text-xs text-danger-700">Elevation: {elev.error}</p>}
       </td>
       <td className="py-1.5">
         {!ends && (
@@ -276,11 +271,11 @@ export function BoreEditor(props: BoreEditorProps) {
       {theirs ? (
         <Alert tone="caution" title="Not saved: someone else saved this bore first">
           <p>
-            Their profile: {theirs.profile.map((p) => `${formatStation(p.station, stationStyle)} @ ${formatNumber(p.elevation, 2)}`).join(', ')}; casing{' '}
+            Their profile: {profileText(theirs.profile, stationStyle)}; casing{' '}
             {formatNumber(theirs.casingOd, 3)} {u} (version {theirs.version}).
           </p>
           <p>
-            Yours: {draft.profile.map((p) => `${formatStation(p.station, stationStyle)} @ ${formatNumber(p.elevation, 2)}`).join(', ')}; casing {formatNumber(draft.casingOd, 3)} {u}.
+            Yours: {profileText(draft.profile, stationStyle)}; casing {formatNumber(draft.casingOd, 3)} {u}.
           </p>
           <div className="mt-2 flex flex-wrap gap-2">
             <Button size="sm" variant="secondary" onClick={props.onTakeTheirs}>
@@ -295,14 +290,14 @@ export function BoreEditor(props: BoreEditorProps) {
         error != null && <ProblemAlert error={error} />
       )}
 
-      <div className="flex flex-wrap gap-2">
-        <Button onClick={onSave} busy={saving} disabled={!dirty || (liveReport != null && !liveReport.computed) || theirs != null}>
-          Save bore
-        </Button>
-        <Button variant="secondary" onClick={onCancel} disabled={saving}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions
+        submitLabel="Save bore"
+        onSubmit={onSave}
+        busy={saving}
+        submitDisabled={!dirty || (liveReport != null && !liveReport.computed) || theirs != null}
+        onCancel={onCancel}
+        cancelDisabled={saving}
+      />
     </section>
   );
 }

@@ -2,9 +2,9 @@ import { LINEAR_UNITS, STATION_STYLES, UNIT_LABELS } from '@shared/domain';
 import type { ProjectDto } from '@shared/api';
 import { projectCreateSchema } from '@shared/schemas/project';
 import { Alert, ProblemAlert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
 import { SelectField, TextAreaField, TextField } from '@/components/ui/field';
-import { applyServerErrors, asTextOrNull, useZodForm } from '@/lib/form';
+import { FormActions, saveErrorHandler } from '@/components/ui/form';
+import { asTextOrNull, useZodForm } from '@/lib/form';
 import { useCreateProject } from '../api/create-project';
 import { crsUnitWarning } from './crs-unit-check';
 import { STATION_STYLE_LABELS } from './station-style';
@@ -28,7 +28,7 @@ export function ProjectCreateForm({ onCreated, onCancel }: { onCreated: (project
   const onSubmit = handleSubmit((values) =>
     create.mutate(values, {
       onSuccess: onCreated,
-      onError: (error) => applyServerErrors(error, setError, FIELDS),
+      onError: saveErrorHandler(setError, FIELDS),
     }),
   );
 
@@ -84,14 +84,7 @@ export function ProjectCreateForm({ onCreated, onCancel }: { onCreated: (project
         </div>
       </fieldset>
 
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" busy={create.isPending}>
-          Create project
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel="Create project" busy={create.isPending} onCancel={onCancel} />
     </form>
   );
 }

@@ -4,10 +4,9 @@ import type { ProjectDto } from '@shared/api';
 import { projectUpdateSchema, type ProjectUpdateInput } from '@shared/schemas/project';
 import { UNIT_SYMBOLS } from '@shared/units';
 import { Alert, ProblemAlert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
 import { NumberField, SelectField, TextAreaField, TextField } from '@/components/ui/field';
-import { isApiError } from '@/lib/api-client';
-import { applyServerErrors, asNumberOrUndefined, asTextOrNull, useZodForm } from '@/lib/form';
+import { FormActions, saveErrorHandler } from '@/components/ui/form';
+import { asNumberOrUndefined, asTextOrNull, useZodForm } from '@/lib/form';
 import { formatLength } from '@/lib/format';
 import { useUpdateProject } from '../api/update-project';
 import { crsUnitWarning } from './crs-unit-check';
@@ -69,14 +68,8 @@ export function ProjectSettingsForm({ project }: { project: ProjectDto }) {
       { ...values, version: project.version },
       {
         onSuccess: (saved) => reset(valuesOf(saved)),
-        onError: (error, _vars) => {
-          if (isApiError(error) && error.isStale) {
-            const current = error.problem.current as ProjectDto | undefined;
-            if (current?.version) reset(valuesOf(current));
-            return;
-          }
-          applyServerErrors(error, setError, FIELDS);
-        },
+        // Someone else saved first: show their version (and carry its version number) before a retry.
+        onError: saveErrorHandler(setError, FIELDS, (current: ProjectDto) => reset(valuesOf(current))),
       },
     ),
   );
@@ -157,15 +150,17 @@ export function ProjectSettingsForm({ project }: { project: ProjectDto }) {
       {/* Outcome beside the buttons: this form is long, and the top is out of view when saving. */}
       {update.error && <ProblemAlert error={update.error} fields={FIELDS} />}
       {update.isSuccess && !isDirty && <Alert tone="success">Project settings saved.</Alert>}
-      <div className="flex flex-wrap items-center gap-2">
-        <Button type="submit" busy={update.isPending} disabled={!isDirty}>
-          Save settings
-        </Button>
-        <Button variant="secondary" disabled={!isDirty} onClick={() => reset(valuesOf(project))}>
-          Discard changes
-        </Button>
+      <FormActions
+        submitLabel="Save settings"
+        busy={update.isPending}
+        submitDisabled={!isDirty}
+        cancelLabel="Discard changes"
+        cancelDisabled={!isDirty}
+        onCancel={() => reset(valuesOf(project))}
+        className="items-center"
+      >
         <span className="text-xs text-ink-500">Version {project.version}</span>
-      </div>
+      </FormActions>
     </form>
   );
 }

@@ -3,10 +3,9 @@ import type { ClearanceRuleDto } from '@shared/api';
 import { clearanceRuleSchema, clearanceRuleUpdateSchema } from '@shared/schemas/project';
 import { UNIT_SYMBOLS } from '@shared/units';
 import { ProblemAlert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
 import { NumberField, SelectField, TextField } from '@/components/ui/field';
-import { isApiError } from '@/lib/api-client';
-import { applyServerErrors, asNumberOrUndefined, asTextOrNull, useZodForm } from '@/lib/form';
+import { FormActions, saveErrorHandler } from '@/components/ui/form';
+import { asNumberOrUndefined, asTextOrNull, useZodForm } from '@/lib/form';
 import { useCreateRule } from '../api/create-rule';
 import { useUpdateRule } from '../api/update-rule';
 
@@ -27,7 +26,7 @@ export function RuleCreateForm({ projectId, unit, kinds, onDone }: { projectId: 
   const onSubmit = handleSubmit((values) =>
     create.mutate(values, {
       onSuccess: onDone,
-      onError: (error) => applyServerErrors(error, setError, CREATE_FIELDS),
+      onError: saveErrorHandler(setError, CREATE_FIELDS),
     }),
   );
 
@@ -46,14 +45,7 @@ export function RuleCreateForm({ projectId, unit, kinds, onDone }: { projectId: 
         <NumberField label="Horizontal clearance" unit={UNIT_SYMBOLS[unit]} required error={errors.horizontal} {...register('horizontal', { setValueAs: asNumberOrUndefined })} />
         <TextField label="Source" hint={SOURCE_HINT} error={errors.source} {...register('source', { setValueAs: asTextOrNull })} />
       </div>
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" busy={create.isPending}>
-          Add rule
-        </Button>
-        <Button variant="secondary" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel="Add rule" busy={create.isPending} onCancel={onDone} />
     </form>
   );
 }
@@ -75,11 +67,8 @@ export function RuleEditForm({ projectId, unit, rule, onDone }: { projectId: num
       { ruleId: rule.id, input: values },
       {
         onSuccess: onDone,
-        onError: (error) => {
-          // Someone else saved first: show their version (and carry its version number) before a retry.
-          if (isApiError(error) && error.isStale) reset(valuesOf(error.problem.current as ClearanceRuleDto));
-          else applyServerErrors(error, setError, UPDATE_FIELDS);
-        },
+        // Someone else saved first: show their version (and carry its version number) before a retry.
+        onError: saveErrorHandler(setError, UPDATE_FIELDS, (current: ClearanceRuleDto) => reset(valuesOf(current))),
       },
     ),
   );
@@ -92,14 +81,7 @@ export function RuleEditForm({ projectId, unit, rule, onDone }: { projectId: num
         <NumberField label="Horizontal clearance" unit={UNIT_SYMBOLS[unit]} required error={errors.horizontal} {...register('horizontal', { setValueAs: asNumberOrUndefined })} />
         <TextField label="Source" hint={SOURCE_HINT} error={errors.source} {...register('source', { setValueAs: asTextOrNull })} />
       </div>
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" busy={update.isPending} disabled={!isDirty}>
-          Save rule
-        </Button>
-        <Button variant="secondary" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel="Save rule" busy={update.isPending} submitDisabled={!isDirty} onCancel={onDone} />
     </form>
   );
 }

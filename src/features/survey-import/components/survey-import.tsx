@@ -1,10 +1,11 @@
-import { useId, useRef, useState, type DragEvent } from 'react';
+import { useId, useRef, useState } from 'react';
 import type { ProjectDto, SurveyImportResultDto, SurveyShotRowDto } from '@shared/api';
 import { UNIT_LABELS } from '@shared/domain';
 import { UNIT_SYMBOLS } from '@shared/units';
 import { Alert, ProblemAlert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { cn } from '@/components/ui/cn';
+import { DropZone, HiddenFileInput } from '@/components/ui/file-drop';
 import { Badge } from '@/components/ui/states';
 import { isApiError } from '@/lib/api-client';
 import { formatNumber } from '@/lib/format';
@@ -39,7 +40,6 @@ export function SurveyImport({ project }: { project: ProjectDto }) {
   const commit = useCommitSurveyImport(project.id);
   const [file, setFile] = useState<{ name: string; csv: string } | null>(null);
   const [readError, setReadError] = useState<string | null>(null);
-  const [dragging, setDragging] = useState(false);
   const inputId = useId();
   const inputRef = useRef<HTMLInputElement>(null);
   const unit = UNIT_SYMBOLS[project.unit];
@@ -69,24 +69,9 @@ export function SurveyImport({ project }: { project: ProjectDto }) {
   const problems = result?.rows.filter((r) => r.outcome !== 'match') ?? [];
   const ready = !!preview.data && problems.length === 0 && preview.data.rows.length > 0 && !commit.isSuccess;
 
-  const onDrop = (e: DragEvent) => {
-    e.preventDefault();
-    setDragging(false);
-    void choose(e.dataTransfer.files[0]);
-  };
-
   return (
     <div className="space-y-4">
-      <section
-        aria-label="Choose a point file"
-        onDragOver={(e) => {
-          e.preventDefault();
-          setDragging(true);
-        }}
-        onDragLeave={() => setDragging(false)}
-        onDrop={onDrop}
-        className={cn('space-y-3 rounded-lg border-2 border-dashed p-4', dragging ? 'border-brand-500 bg-brand-50' : 'border-ink-300 bg-white')}
-      >
+      <DropZone label="Choose a point file" onFiles={(files) => void choose(files[0])}>
         <div className="space-y-1 text-sm text-ink-700">
           <p>
             A CSV point file with a header row <code className="rounded bg-ink-100 px-1 font-mono text-xs">point, northing, easting, elevation, description</code>,
@@ -98,25 +83,13 @@ export function SurveyImport({ project }: { project: ProjectDto }) {
           </p>
         </div>
         <div className="flex flex-wrap items-center gap-2">
-          <input
-            ref={inputRef}
-            id={inputId}
-            type="file"
-            accept=".csv,.txt,text/csv,text/plain"
-            className="sr-only"
-            tabIndex={-1}
-            aria-label="Point file"
-            onChange={(e) => {
-              void choose(e.target.files?.[0]);
-              e.target.value = '';
-            }}
-          />
+          <HiddenFileInput ref={inputRef} id={inputId} accept=".csv,.txt,text/csv,text/plain" label="Point file" onFiles={(files) => void choose(files?.[0])} />
           <Button className="min-h-12" onClick={() => inputRef.current?.click()} busy={preview.isPending}>
             {file ? 'Choose another file' : 'Choose point file'}
           </Button>
           <span className="text-sm text-ink-600">{file ? file.name : 'or drop it here'}</span>
         </div>
-      </section>
+      </DropZone>
 
       {readError && <Alert tone="danger" title="The file cannot be read">{readError}</Alert>}
       {preview.isError && <ProblemAlert error={preview.error} />}

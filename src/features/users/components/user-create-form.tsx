@@ -2,9 +2,9 @@ import { ROLES, ROLE_LABELS } from '@shared/domain';
 import type { UserDto } from '@shared/api';
 import { userCreateSchema } from '@shared/schemas/auth';
 import { ProblemAlert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
-import { applyServerErrors, useZodForm } from '@/lib/form';
+import { FormActions, saveErrorHandler } from '@/components/ui/form';
+import { useZodForm } from '@/lib/form';
 import { useCreateUser } from '../api/create-user';
 
 const FIELDS = ['email', 'name', 'role', 'password'] as const;
@@ -22,7 +22,7 @@ export function UserCreateForm({ onCreated, onCancel }: { onCreated: (user: User
   const onSubmit = handleSubmit((values) =>
     create.mutate(values, {
       onSuccess: onCreated,
-      onError: (error) => applyServerErrors(error, setError, FIELDS),
+      onError: saveErrorHandler(setError, FIELDS),
     }),
   );
 
@@ -49,14 +49,7 @@ export function UserCreateForm({ onCreated, onCancel }: { onCreated: (user: User
           {...register('password')}
         />
       </div>
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" busy={create.isPending}>
-          Add user
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel="Add user" busy={create.isPending} onCancel={onCancel} />
     </form>
   );
 }

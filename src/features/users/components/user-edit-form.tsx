@@ -2,10 +2,9 @@ import { ROLES, ROLE_LABELS } from '@shared/domain';
 import type { UserDto } from '@shared/api';
 import { userUpdateSchema } from '@shared/schemas/auth';
 import { ProblemAlert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
-import { isApiError } from '@/lib/api-client';
-import { applyServerErrors, useZodForm } from '@/lib/form';
+import { FormActions, saveErrorHandler } from '@/components/ui/form';
+import { useZodForm } from '@/lib/form';
 import { useUpdateUser } from '../api/update-user';
 
 const FIELDS = ['name', 'role', 'password'] as const;
@@ -28,11 +27,8 @@ export function UserEditForm({ user, isSelf, onDone }: { user: UserDto; isSelf: 
       { userId: user.id, input: { ...values, role: isSelf ? undefined : values.role } },
       {
         onSuccess: onDone,
-        onError: (error) => {
-          // Someone else saved first: show their version (and carry its version number) before a retry.
-          if (isApiError(error) && error.isStale) reset(valuesOf(error.problem.current as UserDto));
-          else applyServerErrors(error, setError, FIELDS);
-        },
+        // Someone else saved first: show their version (and carry its version number) before a retry.
+        onError: saveErrorHandler(setError, FIELDS, (current: UserDto) => reset(valuesOf(current))),
       },
     ),
   );
@@ -58,14 +54,7 @@ export function UserEditForm({ user, isSelf, onDone }: { user: UserDto; isSelf: 
           {...register('password', { setValueAs: emptyToUndefined })}
         />
       </div>
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" busy={update.isPending} disabled={!isDirty}>
-          Save
-        </Button>
-        <Button variant="secondary" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel="Save" busy={update.isPending} submitDisabled={!isDirty} onCancel={onDone} />
     </form>
   );
 }
