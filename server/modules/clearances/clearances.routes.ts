@@ -1,7 +1,7 @@
 import type { AppConfig } from '../../config';
 import { ApiRouter, type RouteMeta } from '../../http/api-router';
 import type { ClearancesDto } from '@shared/api';
-import { computeProjectReport } from './clearance.service';
+import { computeProjectReport, reportFrame } from './clearance.service';
 
 /** The computed clearances of a project: per bore and per line, every figure, status and basis. */
 export function clearanceRoutes(registry: RouteMeta[], config: AppConfig): ApiRouter {
@@ -9,14 +9,7 @@ export function clearanceRoutes(registry: RouteMeta[], config: AppConfig): ApiRo
 
   api.get('/', { access: 'project.read' }, async ({ em, project }): Promise<ClearancesDto> => {
     const report = await computeProjectReport(em, project);
-    return {
-      checkedAt: new Date().toISOString(),
-      crsCode: project.crsCode,
-      unit: project.unit,
-      verticalDatum: project.verticalDatum,
-      stationStyle: project.stationStyle,
-      report,
-    };
+    return { ...reportFrame(project), report };
   });
 
   return api;

@@ -11,6 +11,7 @@ import {
   topFromHoles,
 } from '@shared/geometry';
 import type { StakeoutSet } from '@shared/schemas/export';
+import { stakePoints } from '../stakeout/stakeout.service';
 import { csvDocument, type CsvColumn } from './csv';
 import type { ExportFrame, ProjectExportData } from './export-data';
 import { decimalsOf, FIELD_CAUTIONS, headerBlock, isoSeconds, round4, stationText } from './export-header';
@@ -49,85 +50,37 @@ export interface StakeoutFilter {
 }
 
 /**
- * The stake-out points of the export-time report. Points are numbered (`X1`, `X2`… for confirmed
- * crossings, `SH1`… for suggested holes, in bore and station order) because data collectors
- * take short names; the line's label goes in the description.
+ * The stake-out points of the export-time report, taken from the stake-out list's own builder
+ * (`stakePoints`, the same points and keys as the Stake-out screen): the confirmed crossings that
+ * have a top-of-line elevation and the suggested test holes (pit corners stay on the screen).
+ * Points are numbered (`X1`, `X2`… for confirmed crossings, `SH1`… for suggested holes, in bore
+ * and station order) because data collectors take short names; the line's label goes in the
+ * description.
  */
 export function stakeoutPoints(data: ProjectExportData, filter: StakeoutFilter = {}): StakeoutPoint[] {
   const sets = filter.set?.length ? filter.set : (['crossings', 'suggested'] as StakeoutSet[]);
-  const numbers = { X: 0, SH: 0 };
-  const next = (prefix: 'X' | 'SH') => `${prefix}${++numbers[prefix]}`;
-  const points: StakeoutPoint[] = [];
   const { frame } = data;
-  for (const bore of data.report.bores) {
-    if (!bore.computed) continue;
-    if (filter.boreId?.length && !filter.boreId.includes(bore.boreId)) continue;
-    const boreRow = data.bores.find((b) => b.id === bore.boreId);
-    if (sets.includes('crossings')) {
-      for (const lc of bore.lines) {
-        const line = data.linesById.get(lc.lineId);
-        if (!line || (filter.kind?.length && !filter.kind.includes(line.kind))) continue;
-        for (const p of lc.points) {
-          if (p.kind !== 'crossing' || !p.verified || p.lineTop == null) continue;
-          const holes = p.verifyingHoles.map((h) => h.number);
-          points.push({
-            name: '',
-            set: 'crossings',
-            boreId: bore.boreId,
-            boreName: bore.name,
-            lineId: line.id,
-            lineLabel: line.label,
-            lineKind: line.kind,
-            easting: p.easting,
-            northing: p.northing,
-            elevation: p.lineTop,
-            elevationRef: 'top of line',
-            station: p.station,
-            offset: p.offset,
-            side: p.side,
-            holes,
-            description: `${line.label} ${LINE_KIND_LABELS[line.kind]} top of line over ${bore.name} STA ${stationText(p.station, frame)} (confirmed by ${holes.join(' ')})`,
-          });
-        }
-      }
-    }
-    if (sets.includes('suggested')) {
-      let ground: ReturnType<typeof prepareProfile> | null = null;
-      try {
-        ground = boreRow && boreRow.groundProfile.length >= 2 ? prepareProfile(boreRow.groundProfile, 'ground profile') : null;
-      } catch {
-        ground = null;
-      }
-      for (const s of bore.suggestedHoles) {
-        const line = data.linesById.get(s.lineId);
-        if (!line || (filter.kind?.length && !filter.kind.includes(line.kind))) continue;
-        const z = ground ? profileElevation(ground, s.station) : null;
-        const where = s.reason === 'crossing' ? 'crossing' : 'closest point';
-        const off = s.offset ? ` ${s.offset.toFixed(decimalsOf(frame.unit))} ${s.side}` : '';
-        points.push({
-          name: '',
-          set: 'suggested',
-          boreId: bore.boreId,
-          boreName: bore.name,
-          lineId: line.id,
-          lineLabel: line.label,
-          lineKind: line.kind,
-          easting: s.easting,
-          northing: s.northing,
-          elevation: z,
-          elevationRef: z == null ? null : 'ground',
-          station: s.station,
-          offset: s.offset,
-          side: s.side,
-          holes: [],
-          description: `Suggested test hole ${line.label} ${LINE_KIND_LABELS[line.kind]} at ${where} ${bore.name} STA ${stationText(s.station, frame)}${off}; ${z == null ? 'no elevation (bore has no ground profile here)' : 'elevation = ground from the bore ground profile'}`,
-        });
-      }
+  const points: StakeoutPoint[] = [];
+  for (const p of stakePoints(data.report, data.input.bores, frame.unit)) {
+    if (p.lineId == null || p.lineKind == null || p.lineLabel == null) continue; // pit corners
+    if (filter.boreId?.length && !filter.boreId.includes(p.boreId)) continue;
+    if (filter.kind?.length && !filter.kind.includes(p.lineKind)) continue;
+    const line = `${p.lineLabel} ${LINE_KIND_LABELS[p.lineKind]}`;
+    const at = `${p.boreName} STA ${stationText(p.station, frame)}`;
+    const common = { name: '', boreId: p.boreId, boreName: p.boreName, lineId: p.lineId, lineLabel: p.lineLabel, lineKind: p.lineKind, easting: p.easting, northing: p.northing, elevation: p.elevation, station: p.station, offset: p.offset, side: p.side, holes: p.holes };
+    if (p.kind === 'crossing' && p.elevation != null && sets.includes('crossings')) {
+      points.push({ ...common, set: 'crossings', elevationRef: 'top of line', description: `${line} top of line over ${at} (confirmed by ${p.holes.join(' ')})` });
+    } else if (p.kind === 'suggested_hole' && sets.includes('suggested')) {
+      const where = p.reason === 'crossing' ? 'crossing' : 'closest point';
+      const off = p.offset ? ` ${p.offset.toFixed(decimalsOf(frame.unit))} ${p.side}` : '';
+      const z = p.elevation == null ? 'no elevation (no ground profile at this station: take the ground on site)' : 'elevation = ground from the bore ground profile';
+      points.push({ ...common, set: 'suggested', elevationRef: p.elevation == null ? null : 'ground', description: `Suggested test hole ${line} at ${where} ${at}${off}; ${z}` });
     }
   }
   // Number in station order along each bore, crossings first.
+  const numbers = { X: 0, SH: 0 };
   points.sort((a, b) => a.boreName.localeCompare(b.boreName) || a.boreId - b.boreId || (a.set === b.set ? 0 : a.set === 'crossings' ? -1 : 1) || a.station - b.station);
-  for (const p of points) p.name = next(p.set === 'crossings' ? 'X' : 'SH');
+  for (const p of points) p.name = p.set === 'crossings' ? `X${++numbers.X}` : `SH${++numbers.SH}`;
   return points;
 }
 

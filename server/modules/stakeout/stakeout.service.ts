@@ -1,16 +1,22 @@
 import type { EntityManager } from '@mikro-orm/sqlite';
 import type { StakeMarkDto, StakeoutDto, StakePointDto } from '@shared/api';
 import { LINE_KIND_LABELS } from '@shared/domain';
-import { prepareProfile, profileElevation, stationOffset } from '@shared/geometry';
-import type { ClearanceReport } from '@shared/geometry/types';
+import { computeClearances, prepareProfile, profileElevation, stationOffset } from '@shared/geometry';
+import type { BoreInput, BoreReport, ClearanceReport, LineClearance } from '@shared/geometry/types';
 import { UNIT_SYMBOLS } from '@shared/units';
-import { Bore } from '../bores/bore.entity';
-import { Pit } from '../bores/pit.entity';
-import { computeProjectReport } from '../clearances/clearance.service';
+import { loadClearanceInput } from '../clearances/clearance-input';
+import { reportFrame } from '../clearances/clearance.service';
 import type { Project } from '../projects/project.entity';
 import { StakeMark } from './stake-mark.entity';
 
-type Point = Omit<StakePointDto, 'mark' | 'movedSinceStaked'>;
+/** A point to stake as computed (before its mark is attached), with why a suggested hole is where it is. */
+export type StakePoint = Omit<StakePointDto, 'mark' | 'movedSinceStaked'> & {
+  /** For suggested holes: at the crossing, or at the line's closest point to the bore. */
+  reason: 'crossing' | 'closest_point' | null;
+};
+
+/** A bore as the stake-out needs it: the engine's input (alignment, ground profile, pits). */
+export type StakeBore = Pick<BoreInput, 'id' | 'alignment' | 'beginStation' | 'groundProfile' | 'pits'>;
 
 export function presentStakeMark(m: StakeMark): StakeMarkDto {
   return {
@@ -29,8 +35,8 @@ export function presentStakeMark(m: StakeMark): StakeMarkDto {
 }
 
 /** Ground at a station from a bore's ground profile, or why there is none. */
-function groundAt(bore: Bore, station: number, beyond: 'start' | 'end' | null): { elevation: number | null; note: string } {
-  if (bore.groundProfile.length === 0) return { elevation: null, note: 'The bore has no ground profile: take the ground elevation on site.' };
+function groundAt(bore: StakeBore, station: number, beyond: 'start' | 'end' | null): { elevation: number | null; note: string } {
+  if (!bore.groundProfile?.length) return { elevation: null, note: 'The bore has no ground profile: take the ground elevation on site.' };
   try {
     const z = beyond ? null : profileElevation(prepareProfile(bore.groundProfile, 'ground profile', 1), station);
     return z === null
@@ -53,10 +59,20 @@ function groundAt(bore: Bore, station: number, beyond: 'start' | 'end' | null): 
  * `:<n>` for a line's second and later crossings), `suggested:<boreId>:<lineId>:<reason>`
  * (with `:<n>` likewise), `pit:<pitId>:<corner>`.
  */
-export function stakePoints(report: ClearanceReport, bores: Bore[], pits: Pit[], unit: Project['unit']): Point[] {
-  const points: Point[] = [];
+export function stakePoints(report: ClearanceReport, bores: readonly StakeBore[], unit: Project['unit']): StakePoint[] {
+  const points: StakePoint[] = [];
   const boreById = new Map(bores.map((b) => [b.id, b]));
   const u = UNIT_SYMBOLS[unit];
+  /** What every point on a line shares: its bore and line. */
+  const onLine = (br: BoreReport, line: LineClearance) => ({
+    boreId: br.boreId,
+    boreName: br.name,
+    lineId: line.lineId,
+    lineLabel: line.label,
+    lineKind: line.kind,
+    pitId: null,
+    pitKind: null,
+  });
   for (const br of report.bores) {
     const bore = boreById.get(br.boreId);
     if (!bore || !br.computed) continue;
@@ -73,13 +89,7 @@ export function stakePoints(report: ClearanceReport, bores: Bore[], pits: Pit[],
           kind: 'crossing',
           name: `X${br.boreId}-${line.lineId}${n > 1 ? `-${n}` : ''}`,
           description: `${line.label} (${LINE_KIND_LABELS[line.kind]}): top of line over ${br.name}${holes.length ? `, verified by ${holes.join(', ')}` : ''}`,
-          boreId: br.boreId,
-          boreName: br.name,
-          lineId: line.lineId,
-          lineLabel: line.label,
-          lineKind: line.kind,
-          pitId: null,
-          pitKind: null,
+          ...onLine(br, line),
           easting: p.easting,
           northing: p.northing,
           elevation: p.lineTop,
@@ -90,6 +100,7 @@ export function stakePoints(report: ClearanceReport, bores: Bore[], pits: Pit[],
           side: p.side,
           beyond: p.beyond,
           holes,
+          reason: null,
         });
       }
       const count = new Map<string, number>();
@@ -103,13 +114,7 @@ export function stakePoints(report: ClearanceReport, bores: Bore[], pits: Pit[],
           kind: 'suggested_hole',
           name: `SH${br.boreId}-${line.lineId}${k > 1 ? `-${k}` : ''}`,
           description: `Suggested test hole on ${line.label} (${LINE_KIND_LABELS[line.kind]}) ${s.reason === 'crossing' ? 'where it crosses' : 'where it comes closest to'} ${br.name}`,
-          boreId: br.boreId,
-          boreName: br.name,
-          lineId: line.lineId,
-          lineLabel: line.label,
-          lineKind: line.kind,
-          pitId: null,
-          pitKind: null,
+          ...onLine(br, line),
           easting: s.easting,
           northing: s.northing,
           elevation: ground.elevation,
@@ -120,10 +125,11 @@ export function stakePoints(report: ClearanceReport, bores: Bore[], pits: Pit[],
           side: s.side,
           beyond: at.beyond,
           holes: [],
+          reason: s.reason,
         });
       }
     }
-    for (const pit of pits.filter((p) => p.bore.id === br.boreId).sort((a, b) => a.id - b.id)) {
+    for (const pit of [...(bore.pits ?? [])].sort((a, b) => a.id - b.id)) {
       pit.footprint.forEach(([e, nth], i) => {
         const at = stationOffset(bore.alignment, bore.beginStation, [e, nth]);
         const corner = i + 1;
@@ -149,26 +155,23 @@ export function stakePoints(report: ClearanceReport, bores: Bore[], pits: Pit[],
           side: at.side,
           beyond: at.beyond,
           holes: [],
+          reason: null,
         });
       });
     }
   }
   const order = { crossing: 0, suggested_hole: 1, pit_corner: 2 } as const;
   // By bore, then crossings and suggested holes up-station, then each pit's corners in footprint order.
-  const along = (p: Point) => (p.kind === 'pit_corner' ? 0 : p.station);
+  const along = (p: StakePoint) => (p.kind === 'pit_corner' ? 0 : p.station);
   return points.sort(
     (a, b) => a.boreName.localeCompare(b.boreName) || a.boreId - b.boreId || order[a.kind] - order[b.kind] || along(a) - along(b) || a.key.localeCompare(b.key, 'en', { numeric: true }),
   );
 }
 
-/** Every point of the project as it stands now (before marks are attached). */
-export async function currentStakePoints(em: EntityManager, project: Project): Promise<Point[]> {
-  const [report, bores, pits] = await Promise.all([
-    computeProjectReport(em, project),
-    em.find(Bore, { project }),
-    em.find(Pit, { bore: { project } }),
-  ]);
-  return stakePoints(report, bores, pits, project.unit);
+/** Every point of the project as it stands now (before marks are attached): one read of the project's rows. */
+export async function currentStakePoints(em: EntityManager, project: Project): Promise<StakePoint[]> {
+  const input = await loadClearanceInput(em, project);
+  return stakePoints(computeClearances(input), input.bores, project.unit);
 }
 
 /**
@@ -182,16 +185,12 @@ export async function stakeoutList(em: EntityManager, project: Project, boreId?:
   const keys = new Set(all.map((p) => p.key));
   const points: StakePointDto[] = all
     .filter((p) => boreId === undefined || p.boreId === boreId)
-    .map((p) => {
+    .map(({ reason: _reason, ...p }) => {
       const m = byKey.get(p.key);
       return { ...p, mark: m ? presentStakeMark(m) : null, movedSinceStaked: m ? Math.hypot(p.easting - m.easting, p.northing - m.northing) : null };
     });
   return {
-    checkedAt: new Date().toISOString(),
-    crsCode: project.crsCode,
-    unit: project.unit,
-    verticalDatum: project.verticalDatum,
-    stationStyle: project.stationStyle,
+    ...reportFrame(project),
     points,
     orphanMarks: marks.filter((m) => !keys.has(m.key)).map(presentStakeMark),
   };
