@@ -161,3 +161,16 @@ export function CheckboxField({ label, hint, className, id: givenId, ...props }:
     </div>
   );
 }
+
+/** The options of a {@link SelectField}: each value under its label ("usft" → "US survey feet"). */
+export function SelectOptions<T extends string>({ values, labels }: { values: readonly T[]; labels: Readonly<Record<T, string>> }) {
+  return (
+    <>
+      {values.map((value) => (
+        <option key={value} value={value}>
+          {labels[value]}
+        </option>
+      ))}
+    </>
+  );
+}

@@ -44,6 +44,16 @@ export function FormActions({
   );
 }
 
+/** A titled group of fields inside a form ("Coordinates and heights"). */
+export function FormSection({ legend, children }: { legend: string; children: ReactNode }) {
+  return (
+    <fieldset className="space-y-4 rounded-md border border-ink-200 p-4">
+      <legend className="px-1 text-sm font-semibold text-ink-800">{legend}</legend>
+      {children}
+    </fieldset>
+  );
+}
+
 /**
  * The `onError` of a form's save: a field problem from the server (400, or 409 on a unique
  * value) goes beside its input (`applyServerErrors`, for the form's `fields`). With `onStale`,

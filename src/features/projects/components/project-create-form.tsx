@@ -2,11 +2,12 @@ import { LINEAR_UNITS, STATION_STYLES, UNIT_LABELS } from '@shared/domain';
 import type { ProjectDto } from '@shared/api';
 import { projectCreateSchema } from '@shared/schemas/project';
 import { Alert, ProblemAlert } from '@/components/ui/alert';
-import { SelectField, TextAreaField, TextField } from '@/components/ui/field';
-import { FormActions, saveErrorHandler } from '@/components/ui/form';
+import { SelectField, SelectOptions, TextAreaField, TextField } from '@/components/ui/field';
+import { FormActions, FormSection, saveErrorHandler } from '@/components/ui/form';
 import { asTextOrNull, useZodForm } from '@/lib/form';
 import { useCreateProject } from '../api/create-project';
 import { crsUnitWarning } from './crs-unit-check';
+import { ProjectIdentityFields } from './project-identity-fields';
 import { STATION_STYLE_LABELS } from './station-style';
 
 const FIELDS = ['name', 'client', 'description', 'crsCode', 'crsProj4', 'unit', 'verticalDatum', 'stationStyle'] as const;
@@ -35,14 +36,9 @@ export function ProjectCreateForm({ onCreated, onCancel }: { onCreated: (project
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="New project">
       {create.error && <ProblemAlert error={create.error} fields={FIELDS} />}
-      <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Project name" required error={errors.name} {...register('name')} />
-        <TextField label="Client" required error={errors.client} {...register('client')} />
-      </div>
-      <TextAreaField label="Description" error={errors.description} {...register('description', { setValueAs: asTextOrNull })} />
+      <ProjectIdentityFields errors={errors} name={register('name')} client={register('client')} description={register('description', { setValueAs: asTextOrNull })} />
 
-      <fieldset className="space-y-4 rounded-md border border-ink-200 p-4">
-        <legend className="px-1 text-sm font-semibold text-ink-800">Coordinates and heights</legend>
+      <FormSection legend="Coordinates and heights">
         <div className="grid gap-4 sm:grid-cols-2">
           <TextField
             label="CRS code"
@@ -54,11 +50,7 @@ export function ProjectCreateForm({ onCreated, onCancel }: { onCreated: (project
             {...register('crsCode')}
           />
           <SelectField label="Linear unit" required hint="Fixed once the project is created: every stored number is in it." error={errors.unit} {...register('unit')}>
-            {LINEAR_UNITS.map((unit) => (
-              <option key={unit} value={unit}>
-                {UNIT_LABELS[unit]}
-              </option>
-            ))}
+            <SelectOptions values={LINEAR_UNITS} labels={UNIT_LABELS} />
           </SelectField>
         </div>
         <TextAreaField
@@ -75,14 +67,10 @@ export function ProjectCreateForm({ onCreated, onCancel }: { onCreated: (project
         <div className="grid gap-4 sm:grid-cols-2">
           <TextField label="Vertical datum" required placeholder="NAVD 88" hint="Printed beside every elevation." error={errors.verticalDatum} {...register('verticalDatum')} />
           <SelectField label="Station style" required hint="100-unit stations are usual on foot projects, 1000-unit on metre projects." error={errors.stationStyle} {...register('stationStyle')}>
-            {STATION_STYLES.map((style) => (
-              <option key={style} value={style}>
-                {STATION_STYLE_LABELS[style]}
-              </option>
-            ))}
+            <SelectOptions values={STATION_STYLES} labels={STATION_STYLE_LABELS} />
           </SelectField>
         </div>
-      </fieldset>
+      </FormSection>
 
       <FormActions submitLabel="Create project" busy={create.isPending} onCancel={onCancel} />
     </form>

@@ -4,12 +4,13 @@ import type { ProjectDto } from '@shared/api';
 import { projectUpdateSchema, type ProjectUpdateInput } from '@shared/schemas/project';
 import { UNIT_SYMBOLS } from '@shared/units';
 import { Alert, ProblemAlert } from '@/components/ui/alert';
-import { NumberField, SelectField, TextAreaField, TextField } from '@/components/ui/field';
-import { FormActions, saveErrorHandler } from '@/components/ui/form';
+import { NumberField, SelectField, SelectOptions, TextAreaField, TextField } from '@/components/ui/field';
+import { FormActions, FormSection, saveErrorHandler } from '@/components/ui/form';
 import { asNumberOrUndefined, asTextOrNull, useZodForm } from '@/lib/form';
 import { formatLength } from '@/lib/format';
 import { useUpdateProject } from '../api/update-project';
 import { crsUnitWarning } from './crs-unit-check';
+import { ProjectIdentityFields } from './project-identity-fields';
 import { STATION_STYLE_LABELS } from './station-style';
 
 const FIELDS = [
@@ -76,14 +77,9 @@ export function ProjectSettingsForm({ project }: { project: ProjectDto }) {
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-5" aria-label="Project settings">
-      <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Project name" required error={errors.name} {...register('name')} />
-        <TextField label="Client" required error={errors.client} {...register('client')} />
-      </div>
-      <TextAreaField label="Description" error={errors.description} {...register('description', { setValueAs: asTextOrNull })} />
+      <ProjectIdentityFields errors={errors} name={register('name')} client={register('client')} description={register('description', { setValueAs: asTextOrNull })} />
 
-      <fieldset className="space-y-4 rounded-md border border-ink-200 p-4">
-        <legend className="px-1 text-sm font-semibold text-ink-800">Coordinates and heights</legend>
+      <FormSection legend="Coordinates and heights">
         <div className="grid gap-4 sm:grid-cols-2">
           <TextField label="CRS code" required spellCheck={false} hint="EPSG:<number> or CUSTOM." error={errors.crsCode} {...register('crsCode')} />
           <TextField
@@ -99,17 +95,12 @@ export function ProjectSettingsForm({ project }: { project: ProjectDto }) {
         <div className="grid gap-4 sm:grid-cols-2">
           <TextField label="Vertical datum" required hint="Printed beside every elevation." error={errors.verticalDatum} {...register('verticalDatum')} />
           <SelectField label="Station style" required error={errors.stationStyle} {...register('stationStyle')}>
-            {STATION_STYLES.map((style) => (
-              <option key={style} value={style}>
-                {STATION_STYLE_LABELS[style]}
-              </option>
-            ))}
+            <SelectOptions values={STATION_STYLES} labels={STATION_STYLE_LABELS} />
           </SelectField>
         </div>
-      </fieldset>
+      </FormSection>
 
-      <fieldset className="space-y-4 rounded-md border border-ink-200 p-4">
-        <legend className="px-1 text-sm font-semibold text-ink-800">Verification and location uncertainty</legend>
+      <FormSection legend="Verification and location uncertainty">
         <p className="text-sm text-ink-600">
           Used by the clearance check. A line counts as verified near a crossing when a dug test hole lies within the verification distance. The
           uncertainty by quality level widens the allowance a clearance must leave.
@@ -145,7 +136,7 @@ export function ProjectSettingsForm({ project }: { project: ProjectDto }) {
           error={errors.settings?.extrapolationFactor}
           {...register('settings.extrapolationFactor', { setValueAs: asNumberOrUndefined })}
         />
-      </fieldset>
+      </FormSection>
 
       {/* Outcome beside the buttons: this form is long, and the top is out of view when saving. */}
       {update.error && <ProblemAlert error={update.error} fields={FIELDS} />}

@@ -3,7 +3,7 @@ import type { ClearanceRuleDto } from '@shared/api';
 import { clearanceRuleSchema, clearanceRuleUpdateSchema } from '@shared/schemas/project';
 import { UNIT_SYMBOLS } from '@shared/units';
 import { ProblemAlert } from '@/components/ui/alert';
-import { NumberField, SelectField, TextField } from '@/components/ui/field';
+import { NumberField, SelectField, SelectOptions, TextField } from '@/components/ui/field';
 import { FormActions, saveErrorHandler } from '@/components/ui/form';
 import { asNumberOrUndefined, asTextOrNull, useZodForm } from '@/lib/form';
 import { useCreateRule } from '../api/create-rule';
@@ -35,11 +35,7 @@ export function RuleCreateForm({ projectId, unit, kinds, onDone }: { projectId: 
       {create.error && <ProblemAlert error={create.error} fields={CREATE_FIELDS} />}
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
         <SelectField label="Line kind" required error={errors.kind} {...register('kind')}>
-          {kinds.map((kind) => (
-            <option key={kind} value={kind}>
-              {LINE_KIND_LABELS[kind]}
-            </option>
-          ))}
+          <SelectOptions values={kinds} labels={LINE_KIND_LABELS} />
         </SelectField>
         <NumberField label="Vertical clearance" unit={UNIT_SYMBOLS[unit]} required error={errors.vertical} {...register('vertical', { setValueAs: asNumberOrUndefined })} />
         <NumberField label="Horizontal clearance" unit={UNIT_SYMBOLS[unit]} required error={errors.horizontal} {...register('horizontal', { setValueAs: asNumberOrUndefined })} />

@@ -1,11 +1,11 @@
-import { ROLES, ROLE_LABELS } from '@shared/domain';
 import type { UserDto } from '@shared/api';
 import { userCreateSchema } from '@shared/schemas/auth';
 import { ProblemAlert } from '@/components/ui/alert';
-import { SelectField, TextField } from '@/components/ui/field';
+import { TextField } from '@/components/ui/field';
 import { FormActions, saveErrorHandler } from '@/components/ui/form';
 import { useZodForm } from '@/lib/form';
 import { useCreateUser } from '../api/create-user';
+import { RoleField } from './role-field';
 
 const FIELDS = ['email', 'name', 'role', 'password'] as const;
 
@@ -32,13 +32,7 @@ export function UserCreateForm({ onCreated, onCancel }: { onCreated: (user: User
       <div className="grid gap-4 sm:grid-cols-2">
         <TextField label="Name" required autoComplete="off" error={errors.name} {...register('name')} />
         <TextField label="Email" type="email" required autoComplete="off" autoCapitalize="none" spellCheck={false} error={errors.email} {...register('email')} />
-        <SelectField label="Role" required error={errors.role} {...register('role')}>
-          {ROLES.map((role) => (
-            <option key={role} value={role}>
-              {ROLE_LABELS[role]}
-            </option>
-          ))}
-        </SelectField>
+        <RoleField required error={errors.role} {...register('role')} />
         <TextField
           label="First password"
           type="password"

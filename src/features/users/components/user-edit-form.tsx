@@ -1,11 +1,11 @@
-import { ROLES, ROLE_LABELS } from '@shared/domain';
 import type { UserDto } from '@shared/api';
 import { userUpdateSchema } from '@shared/schemas/auth';
 import { ProblemAlert } from '@/components/ui/alert';
-import { SelectField, TextField } from '@/components/ui/field';
+import { TextField } from '@/components/ui/field';
 import { FormActions, saveErrorHandler } from '@/components/ui/form';
 import { useZodForm } from '@/lib/form';
 import { useUpdateUser } from '../api/update-user';
+import { RoleField } from './role-field';
 
 const FIELDS = ['name', 'role', 'password'] as const;
 const emptyToUndefined = (value: unknown) => (value === '' ? undefined : value);
@@ -38,13 +38,7 @@ export function UserEditForm({ user, isSelf, onDone }: { user: UserDto; isSelf: 
       {update.error && <ProblemAlert error={update.error} fields={FIELDS} />}
       <div className="grid gap-4 sm:grid-cols-3">
         <TextField label="Name" required error={errors.name} {...register('name')} />
-        <SelectField label="Role" disabled={isSelf} hint={isSelf ? 'Another administrator must change your role.' : undefined} error={errors.role} {...register('role')}>
-          {ROLES.map((role) => (
-            <option key={role} value={role}>
-              {ROLE_LABELS[role]}
-            </option>
-          ))}
-        </SelectField>
+        <RoleField disabled={isSelf} hint={isSelf ? 'Another administrator must change your role.' : undefined} error={errors.role} {...register('role')} />
         <TextField
           label="New password"
           type="password"
