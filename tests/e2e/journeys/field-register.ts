@@ -263,7 +263,7 @@ export const FIELD_REGISTER_JOURNEYS: Journey[] = [
         await context.clearPermissions();
       }
 
-      // A designer logs a hole on a line found on no record, creating the unidentified line first.
+      // A designer logs a hole on a line found on no record: the unidentified line is made with the hole, in one request.
       await page.setViewportSize(DESKTOP);
       await openRoadHoles(page, baseUrl, 'designer');
       await page.getByRole('link', { name: 'Log a test hole' }).click();

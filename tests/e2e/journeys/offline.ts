@@ -3,13 +3,15 @@
  * two holes with photos logged offline and kept on the phone, the page reloaded offline (the
  * service worker serves the shell), the signal back and both holes arriving once; the same
  * outbox replayed twice without a duplicate; an edit made offline that meets someone else's
- * newer save, shown and resolved. Holes and photos are counted through the API itself.
+ * newer save, shown and resolved; a field crew logging a hole on a line on no record with no
+ * signal, the hole and its new unidentified line arriving once. Holes, lines and photos are
+ * counted through the API itself.
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { Jimp } from 'jimp';
 import type { Page } from 'playwright-core';
-import type { HoleDto, PhotoDto, ProjectDto } from '../../../shared/api';
+import type { HoleDto, LineDto, PhotoDto, ProjectDto } from '../../../shared/api';
 import { LINE_KIND_LABELS } from '../../../shared/domain';
 import { DEMO_SCENARIOS } from '../../../seeds/demo';
 import { check, demoUser, signIn, SIGNED_OUT_PROBE, type Journey } from './support';
@@ -288,6 +290,95 @@ export const OFFLINE_JOURNEYS: Journey[] = [
       check(holes.length === 1, `expected one TH-79, found ${holes.length}`);
       const photos = await office<PhotoDto[]>(`/api/projects/${projectId}/holes/${holes[0]!.id}/photos`);
       check(photos.length === 1, `expected one photo, found ${photos.length}`);
+    },
+  },
+  {
+    // Last of all: it adds a hole and a line, and the replay journey above counts the outbox's records.
+    name: 'offline: a field crew logs a hole on a new unidentified line with no signal, and hole and line arrive once',
+    allowErrors: OFFLINE_ERRORS,
+    async run({ page, baseUrl, shots }) {
+      const context = page.context();
+      const call = await apiSession(baseUrl, 'viewer');
+      const projectId = await roadProjectId(call);
+      const number = 'TH-81';
+      const label = 'Unidentified 8-in clay pipe at TH-81';
+      const at = gasMain();
+      await page.setViewportSize(PHONE);
+      await signIn(page, baseUrl, 'field');
+      // One visit online (also when this journey runs alone): the service worker keeps the shell and the lines.
+      await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
+      await page.goto(`${baseUrl}/projects/${projectId}/holes/new`);
+      await page.getByRole('form', { name: 'Log a test hole' }).waitFor({ timeout: 10_000 });
+      check(await page.evaluate(() => navigator.serviceWorker.controller !== null), 'no service worker controls the page after the first visit');
+      try {
+        await context.setOffline(true);
+        await page.getByLabel('Hole number').fill(number);
+        // Field crews are offered the new line too (it is made with the hole, by the hole create).
+        await page.getByLabel('Line exposed').selectOption({ label: '+ New unidentified line (not on any record)' });
+        await page.getByLabel('New line name').fill(label);
+        await page.getByLabel('Easting').fill(String(at.e + 30));
+        await page.getByLabel('Northing').fill(String(at.n));
+        await page.getByLabel('Depth below ground').fill('2.90');
+        await page.getByLabel('Measured size').fill('0.70');
+        await page.getByLabel('Material').fill('Vitrified clay');
+        await page.getByLabel('Direction of run').fill('N 83° E');
+        await page.getByRole('button', { name: 'Save test hole' }).click();
+        const kept = page.getByRole('region', { name: `Test hole ${number} on this phone` });
+        await kept.getByText(`Test hole ${number} is kept on this phone`).waitFor({ timeout: 10_000 });
+        await kept.getByLabel(`Add photos to ${number}`).setInputFiles([{ name: 'th81.png', mimeType: 'image/png', buffer: await png(0x884422ff) }]);
+        await kept.getByRole('list', { name: `Photos of ${number}` }).getByRole('listitem').first().waitFor();
+        await unsentBadge(page, '1 unsent');
+        await page.screenshot({ path: join(shots, 'offline-new-line-kept.png'), fullPage: true });
+        check((await holesNamed(call, projectId, number)).length === 0, `${number} reached the server while the phone was offline`);
+        const linesOffline = await call<LineDto[]>(`/api/projects/${projectId}/lines`);
+        check(!linesOffline.some((l) => l.label === label), 'the new line reached the server while the phone was offline');
+      } finally {
+        await context.setOffline(false);
+      }
+      await unsentBadge(page, 'All sent');
+      const arrived = async (when: string) => {
+        const holes = await holesNamed(call, projectId, number);
+        check(holes.length === 1, `${when}: ${number} exists ${holes.length} times`);
+        const lines = (await call<LineDto[]>(`/api/projects/${projectId}/lines`)).filter((l) => l.label === label);
+        check(lines.length === 1, `${when}: the new line exists ${lines.length} times`);
+        const line = lines[0]!;
+        check(holes[0]!.lineId === line.id, `${when}: ${number} is not on the new line`);
+        check(line.kind === 'unknown' && line.qualityLevel === 'A' && line.owner === 'Unknown' && line.diameter === 0.7, `${when}: the new line is ${line.kind}, QL-${line.qualityLevel}, ${line.owner}, ${line.diameter}`);
+        const photos = await call<PhotoDto[]>(`/api/projects/${projectId}/holes/${holes[0]!.id}/photos`);
+        check(photos.length === 1 && photos[0]!.clientId != null, `${when}: ${number} has ${photos.length} photos (expected 1, with its client id)`);
+      };
+      await arrived('after the signal returned');
+      // The phone forgets the answers (as after lost replies) and sends everything again: still one of each.
+      await page.evaluate(
+        (n) =>
+          new Promise<void>((resolve, reject) => {
+            const open = indexedDB.open('threadline-outbox');
+            open.onerror = () => reject(open.error);
+            open.onsuccess = () => {
+              const tx = open.result.transaction('holes', 'readwrite');
+              const store = tx.objectStore('holes');
+              const all = store.getAll();
+              all.onsuccess = () => {
+                for (const h of all.result as { number: string; status: string; holeId?: number; photos: { status: string }[] }[]) {
+                  if (h.number !== n) continue;
+                  h.status = 'local';
+                  delete h.holeId;
+                  for (const p of h.photos) p.status = 'sending';
+                  store.put(h);
+                }
+                tx.oncomplete = () => resolve();
+              };
+            };
+          }),
+        number,
+      );
+      await page.reload();
+      await unsentBadge(page, 'All sent');
+      await page.getByRole('banner').getByRole('button', { name: 'All sent' }).click();
+      await page.getByRole('region', { name: 'Outbox' }).getByRole('listitem', { name: `Test hole ${number}` }).getByText('Sent', { exact: true }).waitFor({ timeout: 20_000 });
+      await unsentBadge(page, 'All sent');
+      await arrived('after the outbox was sent again');
+      await page.screenshot({ path: join(shots, 'offline-new-line-sent.png'), fullPage: true });
     },
   },
 ];

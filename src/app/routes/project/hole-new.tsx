@@ -32,12 +32,6 @@ export default function HoleNewPage() {
     );
   else if (lines.isPending || bores.isPending || holes.isPending) body = <Loading label="Loading lines and bores…" />;
   else if (lines.isError || bores.isError || holes.isError) body = <ProblemAlert error={lines.error ?? bores.error ?? holes.error} />;
-  else if (lines.data.length === 0 && !can(user.role, 'line.write'))
-    body = (
-      <EmptyState title="No lines to log against yet" action={<ButtonLink to=".." relative="path">Back to test holes</ButtonLink>}>
-        <p>Every test hole records the line it exposes. This project has no lines yet; a designer adds them on the Lines tab.</p>
-      </EmptyState>
-    );
   else if (kept)
     body = (
       <KeptHole

@@ -5,9 +5,7 @@ import type { z } from 'zod';
 import type { BoreDto, HoleDto, LineDto, ProjectDto } from '@shared/api';
 import { LINE_KIND_LABELS, type Role } from '@shared/domain';
 import { pointAtStationOffset } from '@shared/geometry';
-import { can } from '@shared/permissions';
-import { holeCreateSchema, type HoleCreateInput, type HoleUpdateInput } from '@shared/schemas/hole';
-import type { LineCreateInput } from '@shared/schemas/line';
+import { NEW_LINE_STUB_HALF_METRES, holeCreateSchema, type HoleCreateInput, type HoleUpdateInput } from '@shared/schemas/hole';
 import { UNIT_SYMBOLS, convertLength } from '@shared/units';
 import { SafetyCautions } from '@/components/safety-cautions';
 import { Alert, ProblemAlert } from '@/components/ui/alert';
@@ -18,7 +16,6 @@ import { asNumberOrNull, fieldMessage } from '@/lib/form';
 import { formatCoordinate, formatDateTime, formatLength, formatSize } from '@/lib/format';
 import { keepHole } from '@/features/outbox/outbox-store';
 import { useCreateHole } from '../api/create-hole';
-import { useCreateUnknownLine } from '../api/create-unknown-line';
 import { staleHoleOf, useUpdateHole } from '../api/update-hole';
 import { useGpsFix } from '../hooks/use-gps-fix';
 import { parseBearing } from '../utils/bearing';
@@ -26,7 +23,6 @@ import { newClientId } from '../utils/client-id';
 import { HOLE_FIELD_LABELS, describePosition, formatHoleField, type FieldContext } from '../utils/hole-fields';
 import {
   NEW_LINE,
-  PENDING_LINE_ID,
   POSITION_KEYS,
   boreById,
   emptyHoleValues,
@@ -52,10 +48,7 @@ const errorMap: z.core.$ZodErrorMap = (issue) => {
 const schemaResolver = zodResolver(holeCreateSchema, { error: errorMap });
 
 /** Schema paths → form fields where the form shows a field under another name. */
-const FIELD_OF_PATH: Record<string, keyof HoleFormValues> = { lineId: 'lineChoice', station: 'stationText' };
-
-/** Half-length of the stub drawn for a new unidentified line: 5 m each side of the hole, in the project unit. */
-const STUB_HALF_METRES = 5;
+const FIELD_OF_PATH: Record<string, keyof HoleFormValues> = { lineId: 'lineChoice', newLine: 'lineChoice', 'newLine.label': 'newLineLabel', station: 'stationText' };
 
 type Mode = { kind: 'create' } | { kind: 'edit'; hole: HoleDto };
 
@@ -85,14 +78,14 @@ export function HoleForm({ project, role, userName, lines, bores, holes, mode, o
   const editing = mode.kind === 'edit' ? mode.hole : null;
   const [base, setBase] = useState<HoleDto | null>(editing);
   const clientId = useRef(newClientId());
-  const createdLine = useRef<LineDto | null>(null);
   const [stale, setStale] = useState<{ current: HoleDto; body: HoleUpdateInput } | null>(null);
   const [nothingChanged, setNothingChanged] = useState(false);
   const create = useCreateHole(project.id);
   const update = useUpdateHole(project.id, editing?.id ?? 0);
-  const createLine = useCreateUnknownLine(project.id);
   const gps = useGpsFix(project);
-  const canAddLine = can(role, 'line.write');
+  // Anyone logging a hole may add the line on no record it exposed (it is made with the hole,
+  // also from the outbox); an edit changes the line only to one on record.
+  const canAddLine = editing == null;
 
   const defaults = useMemo(
     () =>
@@ -112,8 +105,11 @@ export function HoleForm({ project, role, userName, lines, bores, holes, mode, o
     const result = await schemaResolver(input, context, options as never);
     const errors: Record<string, { type: string; message: string }> = {};
     for (const [path, error] of Object.entries(result.errors as FieldErrors)) {
-      const field = FIELD_OF_PATH[path] ?? path;
-      if (error?.message) errors[field] = { type: String(error.type ?? 'schema'), message: String(error.message) };
+      // The new line's label comes back nested under newLine.
+      const nested = path === 'newLine' && error && !error.message ? (error as unknown as Record<string, { type?: unknown; message?: unknown } | undefined>).label : undefined;
+      const field = FIELD_OF_PATH[nested ? 'newLine.label' : path] ?? path;
+      const e = nested ?? error;
+      if (e?.message) errors[field] = { type: String(e.type ?? 'schema'), message: String(e.message) };
     }
     for (const [field, message] of Object.entries(extra)) errors[field] = { type: 'custom', message };
     // The schema checks the position only once every field has its type, so a first save with
@@ -236,49 +232,6 @@ export function HoleForm({ project, role, userName, lines, bores, holes, mode, o
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [fixAt]);
 
-  async function makeLine(values: HoleFormValues, hole: HoleCreateInput): Promise<number> {
-    if (createdLine.current) return createdLine.current.id;
-    let e = hole.easting ?? null;
-    let n = hole.northing ?? null;
-    if (hole.positionSource === 'station') {
-      const bore = boreById(bores, String(hole.boreId));
-      if (bore && hole.station != null) {
-        const p = pointAtStationOffset(bore.alignment, bore.beginStation, hole.station, hole.offset ?? 0, hole.offsetSide ?? 'R');
-        e = p.easting;
-        n = p.northing;
-      }
-    }
-    if (e == null || n == null) throw new Error('The position is needed to draw the new line.');
-    const azimuth = ((parseBearing(values.direction) ?? 0) * Math.PI) / 180;
-    const half = convertLength(STUB_HALF_METRES, 'm', project.unit);
-    const dx = Math.sin(azimuth) * half;
-    const dy = Math.cos(azimuth) * half;
-    const round = (x: number) => Math.round(x * 1000) / 1000;
-    const box = values.sizeShape === 'box';
-    const input: LineCreateInput = {
-      label: values.newLineLabel.trim(),
-      owner: 'Unknown',
-      kind: 'unknown',
-      shape: box ? 'box' : 'round',
-      diameter: box ? null : values.measuredSize,
-      width: box ? values.boxWidth : null,
-      height: box ? values.boxHeight : null,
-      material: values.material.trim() || null,
-      status: 'unknown',
-      qualityLevel: 'A',
-      path: [
-        [round(e - dx), round(n - dy)],
-        [round(e + dx), round(n + dy)],
-      ],
-      recordDepth: values.depthToTop ?? 0,
-      notes: `Found at test hole ${values.number}. Drawn as a ${formatLength(2 * half, project.unit, 1)} stub along the direction of run the crew gave (${values.direction.trim()}); extend its path when more of it is known. Treat as live until identified.`,
-    };
-    const line = await createLine.mutateAsync(input);
-    createdLine.current = line;
-    setValue('lineChoice', String(line.id));
-    return line.id;
-  }
-
   const showServerErrors = (error: unknown) => {
     if (!isApiError(error)) return;
     for (const fe of error.fieldErrors) {
@@ -292,10 +245,9 @@ export function HoleForm({ project, role, userName, lines, bores, holes, mode, o
     const values = getValues();
     try {
       if (!base) {
-        const lineId = values.lineChoice === NEW_LINE || input.lineId === PENDING_LINE_ID ? await makeLine(values, input) : input.lineId;
-        const hole = await create.mutateAsync({ ...input, lineId });
+        // A new unidentified line goes in the same request (newLine): the server makes both at once.
+        const hole = await create.mutateAsync(input);
         clientId.current = newClientId();
-        createdLine.current = null;
         onSaved(hole, 'created');
         return;
       }
@@ -310,7 +262,8 @@ export function HoleForm({ project, role, userName, lines, bores, holes, mode, o
       onSaved(hole, 'updated');
     } catch (error) {
       // No connection: keep a new hole in the outbox (its client id goes with it, so it is sent once).
-      if (!base && onKept && isApiError(error) && error.status === 0 && values.lineChoice !== NEW_LINE && input.lineId !== PENDING_LINE_ID) {
+      // A hole on a new unidentified line is kept whole, newLine and all, and sent as one request.
+      if (!base && onKept && isApiError(error) && error.status === 0) {
         // If this browser cannot store it (private mode, storage full), the form keeps the entries as before.
         const kept = await keepHole(project, input).catch(() => null);
         if (kept) {
@@ -402,7 +355,7 @@ export function HoleForm({ project, role, userName, lines, bores, holes, mode, o
     </option>
   );
 
-  const mutationError = createLine.error ?? (base ? update.error : create.error);
+  const mutationError = base ? update.error : create.error;
   const offline = isApiError(mutationError) && mutationError.status === 0;
   const errorCount = Object.keys(errors).length;
   const locked = base?.status === 'reviewed';
@@ -445,17 +398,17 @@ export function HoleForm({ project, role, userName, lines, bores, holes, mode, o
           <div className="space-y-3 rounded-md bg-ink-50 p-3">
             <TextField label="New line name" required placeholder="e.g. Unidentified 10-in clay pipe" error={errors.newLineLabel} {...register('newLineLabel')} />
             <p className="text-xs text-ink-600">
-              Saved as kind <strong>Unidentified</strong>, owner unknown, status unknown, quality level A at this hole, with the size, material and depth
-              below. It is drawn as a {formatLength(2 * convertLength(STUB_HALF_METRES, 'm', project.unit), project.unit, 1)} stub through the hole along
-              the direction of run, so give that direction. Treat it as live until identified, and extend its path on the Lines tab when more is known.
+              Saved with this hole as kind <strong>Unidentified</strong>, owner unknown, status unknown, quality level A at this hole, with the size,
+              material and depth below. It is drawn as a {formatLength(2 * convertLength(NEW_LINE_STUB_HALF_METRES, 'm', project.unit), project.unit, 1)} stub
+              through the hole along the direction of run, so give that direction. Without signal it is kept on this phone with the hole and both are sent
+              together. Treat it as live until identified; the designer extends its path on the Lines tab when more is known.
             </p>
           </div>
         ) : (
-          !canAddLine && (
+          canAddLine && (
             <p className="text-xs text-ink-600">
-              Found a line that is on no record? If it is one of the <em>Unidentified lines</em> in the list, choose it. Only a designer can add a new
-              line, because every clearance is computed from the register’s lines: ask the project’s designer to add it (they can do it from this
-              form), then log the hole on it. {unknownLines.length === 0 ? 'This project has no unidentified lines yet.' : ''}
+              Exposed a line that is on no record? If it is one of the <em>Unidentified lines</em> in the list, choose it; otherwise choose <em>+ New
+              unidentified line</em> and it is added with this hole.
             </p>
           )
         )}

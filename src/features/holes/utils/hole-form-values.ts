@@ -10,7 +10,7 @@ import type { HoleCreateInput, HoleUpdateInput } from '@shared/schemas/hole';
  */
 export interface HoleFormValues {
   number: string;
-  /** A line id, or NEW_LINE to add an unidentified line first. */
+  /** A line id, or NEW_LINE to add an unidentified line with the hole (sent as `newLine`). */
   lineChoice: string;
   newLineLabel: string;
   /** The form's position mode; 'map' and 'survey' positions of existing holes are shown as grid values. */
@@ -136,9 +136,6 @@ export function holeToValues(hole: HoleDto, stationStyle: StationStyle): HoleFor
 
 const text = (v: string): string | null => (v.trim() === '' ? null : v.trim());
 
-/** Placeholder line id while a new unidentified line is still to be made (replaced before sending). */
-export const PENDING_LINE_ID = Number.MAX_SAFE_INTEGER;
-
 export interface PayloadResult {
   input: Omit<HoleCreateInput, 'clientId'> & { clientId: string };
   /** Problems the shared schema cannot see (the station text), keyed by form field. */
@@ -175,7 +172,7 @@ export function toCreateInput(values: HoleFormValues, clientId: string, stationS
   const input = {
     clientId,
     number: values.number,
-    lineId: values.lineChoice === NEW_LINE ? PENDING_LINE_ID : values.lineChoice ? Number(values.lineChoice) : (undefined as unknown as number),
+    ...(values.lineChoice === NEW_LINE ? { newLine: { label: values.newLineLabel } } : { lineId: values.lineChoice ? Number(values.lineChoice) : undefined }),
     positionSource: source,
     ...position,
     groundElevation: values.groundElevation,
