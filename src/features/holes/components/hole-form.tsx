@@ -242,7 +242,6 @@ export function HoleForm({ project, role, userName, lines, bores, holes, mode, o
 
   const onSubmit = handleSubmit(async (input) => {
     setNothingChanged(false);
-    const values = getValues();
     try {
       if (!base) {
         // A new unidentified line goes in the same request (newLine): the server makes both at once.
@@ -621,7 +620,7 @@ export function HoleForm({ project, role, userName, lines, bores, holes, mode, o
           </p>
         </Alert>
       ) : (
-        mutationError && <ProblemAlert error={mutationError} fields={Object.keys(defaults).concat(['lineId', 'station'])} />
+        mutationError && <ProblemAlert error={mutationError} fields={Object.keys(defaults).concat(['lineId', 'newLine', 'newLine.label', 'station'])} />
       )}
       {nothingChanged && <Alert tone="info">Nothing changed, so nothing was saved.</Alert>}
       <div className="sticky bottom-0 -mx-3 flex flex-wrap gap-2 border-t border-ink-200 bg-ink-50/95 px-3 py-3 sm:static sm:mx-0 sm:border-0 sm:bg-transparent sm:px-0">
