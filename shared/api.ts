@@ -251,14 +251,14 @@ export interface ConflictDto {
   createdAt: string;
   updatedAt: string;
   /** When the clearance check last looked at it. */
-  checkedAt?: string;
+  checkedAt: string;
   /** True once a person set the status (the clearance check then never overwrites it). */
-  statusSetByPerson?: boolean;
-  responsibleParty?: string | null;
-  ownerNotifiedAt?: string | null;
-  answerDueAt?: string | null;
-  closedAt?: string | null;
-  notes?: string | null;
+  statusSetByPerson: boolean;
+  responsibleParty: string | null;
+  ownerNotifiedAt: string | null;
+  answerDueAt: string | null;
+  closedAt: string | null;
+  notes: string | null;
 }
 
 /** A pit a conflicting line enters or comes within the horizontal requirement of. */
@@ -279,30 +279,10 @@ export interface ConflictPitDto {
 export interface ConflictRowDto extends ConflictDto {
   /** The register's number, `C-<id>`. */
   number: string;
-  checkedAt: string;
-  statusSetByPerson: boolean;
-  responsibleParty: string | null;
-  ownerNotifiedAt: string | null;
-  answerDueAt: string | null;
-  closedAt: string | null;
-  notes: string | null;
   assigneeName: string | null;
   assigneeEmail: string | null;
   bore: { id: number; name: string };
-  line: {
-    id: number;
-    label: string;
-    owner: string;
-    contactEmail: string | null;
-    kind: LineKind;
-    shape: LineShape;
-    diameter: number | null;
-    width: number | null;
-    height: number | null;
-    material: string | null;
-    status: LineStatus;
-    qualityLevel: QualityLevel;
-  };
+  line: Pick<LineDto, 'id' | 'label' | 'owner' | 'contactEmail' | 'kind' | 'shape' | 'diameter' | 'width' | 'height' | 'material' | 'status' | 'qualityLevel'>;
   /** Test holes on the line, those verifying the governing point first and flagged. */
   holes: { id: number; number: string; status: HoleStatus; verifying: boolean }[];
   /** Pits the line conflicts with (empty when the conflict is with the bore alone). */

@@ -29,17 +29,9 @@ export function presentConflictRow(c: Conflict, holesOnLine: { id: number; numbe
   const holes = holesOnLine
     .map((h) => ({ id: h.id, number: h.number, status: h.status, verifying: verifying.has(h.number) }))
     .sort((a, b) => Number(b.verifying) - Number(a.verifying) || a.number.localeCompare(b.number, 'en', { numeric: true }));
-  const base = presentConflict(c);
   return {
-    ...base,
+    ...presentConflict(c),
     number: conflictNumber(c.id),
-    checkedAt: c.checkedAt.toISOString(),
-    statusSetByPerson: c.statusSetByPerson,
-    responsibleParty: c.responsibleParty ?? null,
-    ownerNotifiedAt: base.ownerNotifiedAt ?? null,
-    answerDueAt: base.answerDueAt ?? null,
-    closedAt: base.closedAt ?? null,
-    notes: c.notes ?? null,
     assigneeName: c.assignee?.name ?? null,
     assigneeEmail: c.assignee?.email ?? null,
     bore: { id: c.bore.id, name: c.bore.name },

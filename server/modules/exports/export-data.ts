@@ -1,14 +1,12 @@
 import type { EntityManager } from '@mikro-orm/sqlite';
-import type { ConflictRowDto } from '@shared/api';
+import type { ConflictRowDto, HoleDto } from '@shared/api';
 import type { ConflictFilter } from '@shared/conflicts';
 import {
   CONFLICT_STATUS_LABELS,
   LINE_KIND_LABELS,
   UNIT_LABELS,
   type BoreMethod,
-  type DepthReference,
   type ExcavationMethod,
-  type HoleStatus,
   type LineStatus,
   type LinearUnit,
   type PitKind,
@@ -71,35 +69,22 @@ export type LineRow = LineInput & {
   notes: string | null;
 };
 
-export interface HoleRow {
-  id: number;
-  number: string;
-  lineId: number;
-  status: HoleStatus;
-  positionSource: PositionSource;
+/** A test hole: the register's columns, with the position and elevations the exports print. */
+export type HoleRow = Pick<
+  HoleDto,
+  | 'id' | 'number' | 'lineId' | 'status' | 'positionSource' | 'approximate' | 'boreId' | 'station' | 'offset' | 'offsetSide'
+  | 'depthToTop' | 'depthReference' | 'measuredSize' | 'material' | 'condition' | 'method' | 'ticketNumber' | 'crew' | 'notes'
+> & {
   /** The position used: surveyed when both surveyed coordinates exist, else as logged. */
   easting: number;
   northing: number;
   surveyed: boolean;
-  approximate: boolean;
-  boreId: number | null;
-  station: number | null;
-  offset: number | null;
-  offsetSide: Side | null;
+  /** Surveyed ground when there is one, else as logged. */
   groundElevation: number | null;
-  depthToTop: number | null;
-  depthReference: DepthReference;
   /** Top of line at the hole (surveyed top, else ground − depth), null when it gives none. */
   topElevation: number | null;
-  measuredSize: number | null;
-  material: string | null;
-  condition: string | null;
-  method: ExcavationMethod | null;
-  ticketNumber: string | null;
-  crew: string | null;
   dugAt: Date | null;
-  notes: string | null;
-}
+};
 
 /** A bore: what the engine reads (without its pits) and its method. */
 export type BoreRow = Omit<BoreInput, 'pits'> & { method: BoreMethod };

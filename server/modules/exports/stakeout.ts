@@ -13,7 +13,7 @@ import {
 import type { StakeoutSet } from '@shared/schemas/export';
 import { stakePoints } from '../stakeout/stakeout.service';
 import { csvDocument, type CsvColumn } from './csv';
-import type { ExportFrame, ProjectExportData } from './export-data';
+import type { ProjectExportData } from './export-data';
 import { decimalsOf, FIELD_CAUTIONS, headerBlock, isoSeconds, round4, stationText } from './export-header';
 
 /**
