@@ -159,12 +159,13 @@ export async function authenticate(req: Request, em: EntityManager, config: AppC
 async function loadProjectFor(em: EntityManager, user: User, rawId: string | undefined): Promise<Project> {
   const id = Number(rawId);
   if (!Number.isSafeInteger(id) || id <= 0) throw notFound('Project');
-  const project = await em.findOne(Project, id);
-  if (!project) throw notFound('Project');
+  // One query: the project, joined to the membership check for everyone but administrators.
+  const qb = em.createQueryBuilder(Project, 'p').select('p.*').where({ id });
   if (user.role !== 'admin') {
-    const member = await em.count(ProjectMember, { project, user });
-    if (member === 0) throw notFound('Project');
+    qb.andWhere(`exists (select 1 from ${em.getMetadata(ProjectMember).tableName} m where m.project_id = p.id and m.user_id = ?)`, [user.id]);
   }
+  const project = await qb.getSingleResult();
+  if (!project) throw notFound('Project');
   return project;
 }
 
