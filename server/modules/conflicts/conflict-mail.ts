@@ -1,6 +1,6 @@
 import type { EntityManager } from '@mikro-orm/sqlite';
 import { ACTIVE_CONFLICT_STATUSES } from '@shared/conflicts';
-import { CONFLICT_STATUS_LABELS, LINE_KIND_LABELS } from '@shared/domain';
+import { CONFLICT_STATUS_LABELS, LINE_KIND_LABELS, UNIT_LABELS } from '@shared/domain';
 import { textDate, textLength, textOffset, textStation, MAIL_CAUTION } from '../mail/format';
 import { enqueueMail } from '../mail/outbox';
 import type { OutboxMessage } from '../mail/outbox-message.entity';
@@ -51,7 +51,7 @@ export async function queueAssignmentMail(
     ...conflictSummary(conflict, project),
     ...link(a.publicUrl, project, conflict),
     '',
-    `Lengths in ${project.unit === 'usft' ? 'US survey feet' : project.unit === 'ft' ? 'international feet' : 'metres'}; grid ${project.crsCode}; elevations ${project.verticalDatum}.`,
+    `Lengths in ${UNIT_LABELS[project.unit]}; grid ${project.crsCode}; elevations ${project.verticalDatum}.`,
     '',
     MAIL_CAUTION,
   ].join('\n');

@@ -13,7 +13,7 @@ import {
 import type { StakeoutSet } from '@shared/schemas/export';
 import { stakePoints } from '../stakeout/stakeout.service';
 import { csvDocument, type CsvColumn } from './csv';
-import type { ProjectExportData } from './export-data';
+import { describeFilter, filterNames, type ProjectExportData } from './export-data';
 import { decimalsOf, FIELD_CAUTIONS, headerBlock, isoSeconds, round4, stationText } from './export-header';
 
 /**
@@ -90,10 +90,10 @@ function setsText(filter: StakeoutFilter): string {
 }
 
 function filterText(data: ProjectExportData, filter: StakeoutFilter): string {
-  const parts = [`points = ${setsText(filter)}`];
-  if (filter.boreId?.length) parts.push(`bore = ${filter.boreId.map((id) => data.bores.find((b) => b.id === id)?.name ?? `#${id}`).join(', ')}`);
-  if (filter.kind?.length) parts.push(`kind = ${filter.kind.map((k) => LINE_KIND_LABELS[k]).join(', ')}`);
-  return parts.join('; ');
+  // Bores and kinds in the conflict lists' words.
+  const narrowed = filter.boreId?.length || filter.kind?.length;
+  const rest = narrowed ? [describeFilter({ boreId: filter.boreId, kind: filter.kind }, filterNames([], data.bores))] : [];
+  return [`points = ${setsText(filter)}`, ...rest].join('; ');
 }
 
 /** The stake-out header block (with the digging cautions for the field). */

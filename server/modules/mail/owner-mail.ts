@@ -1,7 +1,7 @@
 import type { EntityManager } from '@mikro-orm/sqlite';
 import type { ConflictRowDto, MailOwnersResultDto, OwnerMailPlanDto } from '@shared/api';
 import { ACTIVE_CONFLICT_STATUSES } from '@shared/conflicts';
-import { CONFLICT_STATUS_LABELS, LINE_KIND_LABELS } from '@shared/domain';
+import { CONFLICT_STATUS_LABELS, LINE_KIND_LABELS, UNIT_LABELS } from '@shared/domain';
 import type { MailOwnersInput } from '@shared/schemas/mail';
 import { badRequest } from '../../errors';
 import { logActivity } from '../activity/activity.service';
@@ -15,8 +15,6 @@ import type { Project } from '../projects/project.entity';
 import { User } from '../users/user.entity';
 import { MAIL_CAUTION, textDateTime, textLength, textStation } from './format';
 import { enqueueMail } from './outbox';
-
-const UNIT_NAMES = { m: 'metres', ft: 'international feet', usft: 'US survey feet' } as const;
 
 interface Planned extends Omit<OwnerMailPlanDto, 'outboxId'> {
   rows: ConflictRowDto[];
@@ -99,7 +97,7 @@ function messageText(project: Project, plan: Planned, sender: User, note: string
     '',
     ...lines,
     '',
-    `Grid ${project.crsCode}; lengths in ${UNIT_NAMES[u]}; elevations ${project.verticalDatum}; last clearance check ${textDateTime(checkedAt)}.`,
+    `Grid ${project.crsCode}; lengths in ${UNIT_LABELS[u]}; elevations ${project.verticalDatum}; last clearance check ${textDateTime(checkedAt)}.`,
     '',
     `Please reply to ${sender.name} <${sender.email}> with your requirements, a waiver, or comments.`,
     '',
