@@ -1,8 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import type { ConflictDto, ConflictEventDto, ConflictRowDto } from '@shared/api';
-import { Conflict, OutboxMessage } from '@server/entities';
+import { randomUUID } from 'node:crypto';
+import { Conflict, OutboxMessage, Project, TestHole, UtilityLine } from '@server/entities';
 import { recomputeConflicts } from '@server/modules/clearances/clearance.service';
+import { loadConflictRegister } from '@server/modules/conflicts/conflict-rows';
 import { deliverDue } from '@server/modules/mail/outbox';
 import { loopbackSender } from '@server/modules/mail/transport';
 import { makeFixtures, makeTestApp, tableCounts, type Fixtures, type TestContext } from './helpers';
@@ -269,5 +271,70 @@ describe('assignment tells the assignee by mail', () => {
     ]);
     const conflict = await em.findOneOrFail(Conflict, f.conflict.id, { populate: ['assignee'] });
     expect(conflict.assignee?.id).toBe(ctx.users.manager.id);
+  });
+});
+
+describe('the register is read in the same number of queries whatever the number of conflicts', () => {
+  /** Every SQL statement the app sends during `run`, counted through knex's query event. */
+  async function queriesDuring(run: () => Promise<unknown>): Promise<number> {
+    const knex = ctx.orm.em.getConnection().getKnex();
+    let n = 0;
+    const count = () => n++;
+    knex.on('query', count);
+    try {
+      await run();
+    } finally {
+      knex.removeListener('query', count);
+    }
+    return n;
+  }
+
+  /** Add `extra` lines crossing the fixture bore, each exposed by a hole that puts it on the casing (overlap). */
+  async function withCrossings(f: Fixtures, extra: number): Promise<void> {
+    const em = ctx.orm.em.fork();
+    const project = await em.findOneOrFail(Project, f.project.id);
+    for (let i = 0; i < extra; i++) {
+      const e = 3000150 + i * 20; // between the water line (E 3,000,100) and the end of the bore (E 3,000,250)
+      const line = new UtilityLine(project, `G-${i + 1}`, 'Test gas company', 'gas', [
+        [e, 13799900],
+        [e, 13800100],
+      ]);
+      line.diameter = 0.5;
+      em.persist(line);
+      const hole = new TestHole(project, line, randomUUID(), `TH-G${i + 1}`, e, 13800005);
+      hole.status = 'dug';
+      hole.groundElevation = 100;
+      hole.depthToTop = 14.5; // top 85.50, bottom 85.00: inside the casing band, as in mail.test.ts
+      em.persist(hole);
+    }
+    await em.flush();
+    await recomputeConflicts(em, project, null);
+    await em.flush();
+  }
+
+  it('when a project has one conflict or four, then the list, the CSV export and the owner mail preview each take as many queries', async () => {
+    const one = await makeFixtures(ctx);
+    const four = await makeFixtures(ctx);
+    await withCrossings(four, 3);
+    expect(((await get(base(four))).body as ConflictRowDto[]).length).toBe(4);
+    const routes = (f: Fixtures) => [
+      () => get(base(f)),
+      () => get(`/api/projects/${f.project.id}/exports/conflicts.csv`),
+      () => post(`/api/projects/${f.project.id}/mail/owners`, { mode: 'preview' }, 'manager'),
+    ];
+    const counts = async (f: Fixtures) => {
+      const out: number[] = [];
+      for (const route of routes(f)) out.push(await queriesDuring(route));
+      return out;
+    };
+    const [a, b] = [await counts(one), await counts(four)];
+    expect(b).toEqual(a);
+    expect(a.every((n) => n > 0)).toBe(true);
+    // The register itself: the conflicts with their bore, line and assignee, then the holes of those lines.
+    const em = ctx.orm.em.fork();
+    const project = await em.findOneOrFail(Project, four.project.id);
+    let register: Awaited<ReturnType<typeof loadConflictRegister>> | undefined;
+    expect(await queriesDuring(async () => (register = await loadConflictRegister(em, project)))).toBe(2);
+    expect(register!.rows).toHaveLength(4);
   });
 });
