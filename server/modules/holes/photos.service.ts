@@ -161,13 +161,21 @@ export async function receivePhotos(args: {
     }
     throw err;
   }
-  const base = em.fork();
-  for (const photo of photos) {
-    thumbnails.add(() => processPhoto(base, storage, photo.id, args.logger));
-  }
+  queueCopies(em.fork(), storage, photos.map((p) => p.id), args.logger);
   // In the order of the files: photos already kept where their ids were known, the new ones elsewhere.
   const made = new Map(fresh.map((i, n) => [i, photos[n]!]));
   return { photos: files.map((_, i) => presentPhoto(made.get(i) ?? known.get(clientIds![i]!)!, project.id)), created: true };
+}
+
+/**
+ * Queue the upright copies and thumbnails of stored photos. Kept outside `receivePhotos` on
+ * purpose: a job made there would close over its scope, which holds the upload's buffers, and
+ * every photo waiting in the queue kept its ~5 MB original alive (arrayBuffers climbed by about
+ * 5 MB per queued photo in the 50-upload run). The jobs here hold only ids; the original is read
+ * back from storage when its turn comes.
+ */
+function queueCopies(base: EntityManager, storage: FileStorage, photoIds: readonly number[], logger: Logger): void {
+  for (const id of photoIds) thumbnails.add(() => processPhoto(base, storage, id, logger));
 }
 
 export interface ReceivedPhotos {
