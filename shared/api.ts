@@ -503,7 +503,7 @@ export interface AdminMailDto {
 
 /** GET /api/projects/:id/exports: what the Exports screen offers, with the project's reference frame. */
 export interface ExportSummaryDto {
-  /** The clearances were recomputed for this answer, at this time (every export does the same). */
+  /** The clearances were recomputed for this answer, at this time (as the stake-out, GeoJSON and zip exports do; conflict lists state the register's last check). */
   checkedAt: string;
   crsCode: string;
   crsName: string;

@@ -48,7 +48,9 @@ export default function ExportsTab() {
         <h2 className="text-lg font-semibold">Exports</h2>
         <p className="text-sm text-ink-700">
           Every file states in its header the CRS ({s.crsCode} {s.crsName}), the unit ({UNIT_LABELS[s.unit]}), the vertical datum ({s.verticalDatum}) and the
-          time of the clearance check: the clearances are recomputed when each file is made (last computed {formatDateTime(s.checkedAt)}).
+          time of the clearance check. Conflict lists carry the register as of its last check (every change that can move a clearance reruns it); the
+          stake-out points, GeoJSON and the zip's test-hole sheets recompute the clearances when each file is made (last computed{' '}
+          {formatDateTime(s.checkedAt)}).
         </p>
       </div>
 
