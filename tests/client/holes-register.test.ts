@@ -26,7 +26,7 @@ const hole: HoleDto = {
 const row: HoleRow = {
   hole, number: hole.number, status: hole.status, statusOrder: 2, lineId: 3, lineLabel: '12-in water main, south side', lineKind: 'water',
   qualityLevel: 'A', clearance: { status: 'marginal', bores: [{ boreId: 1, name: 'Bore 1', status: 'marginal' }] }, clearanceOrder: 2,
-  ground: 429.5, groundSurveyed: true, depth: 4.34, top: 425.18, topSource: 'surveyed', boreName: 'Bore 1', dugAt: hole.dugAt, crew: hole.crew,
+  ground: 429.5, groundSurveyed: true, depth: 4.34, top: 425.18, topSource: 'surveyed', boreName: 'Bore 1', dugAt: hole.dugAt ?? undefined, crew: hole.crew ?? undefined,
   photos: 3, search: '',
 };
 

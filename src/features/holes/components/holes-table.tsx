@@ -41,18 +41,20 @@ export interface HoleRow {
   lineId: number;
   lineLabel: string;
   lineKind: LineKind | null;
-  qualityLevel: QualityLevel | null;
+  // Blanks are `undefined`, not null: TanStack Table's `sortUndefined: 'last'` places only
+  // undefined, so a null would sort first ascending.
+  qualityLevel: QualityLevel | undefined;
   clearance: LineClearanceSummary | null;
   /** Rank of the clearance status for sorting (worst first); lines near no bore sort last. */
   clearanceOrder: number | undefined;
-  ground: number | null;
+  ground: number | undefined;
   groundSurveyed: boolean;
-  depth: number | null;
-  top: number | null;
+  depth: number | undefined;
+  top: number | undefined;
   topSource: 'surveyed' | 'ground − depth' | null;
   boreName: string | null;
-  dugAt: string | null;
-  crew: string | null;
+  dugAt: string | undefined;
+  crew: string | undefined;
   photos: number;
   /** Text the search box looks through. */
   search: string;
@@ -91,17 +93,17 @@ export function toRows(holes: readonly HoleDto[], ctx: HoleTableContext): HoleRo
       lineId: h.lineId,
       lineLabel: line?.label ?? `Line ${h.lineId}`,
       lineKind: line?.kind ?? null,
-      qualityLevel: line?.qualityLevel ?? null,
+      qualityLevel: line?.qualityLevel ?? undefined,
       clearance,
       clearanceOrder: clearance ? clearanceRank(clearance.status) : undefined,
-      ground: h.surveyedGroundElevation ?? h.groundElevation,
+      ground: h.surveyedGroundElevation ?? h.groundElevation ?? undefined,
       groundSurveyed: h.surveyedGroundElevation != null,
-      depth: h.depthToTop,
-      top: top?.value ?? null,
+      depth: h.depthToTop ?? undefined,
+      top: top?.value,
       topSource: top?.source ?? null,
       boreName: h.boreId != null ? (ctx.bores.get(h.boreId) ?? `bore ${h.boreId}`) : null,
-      dugAt: h.dugAt,
-      crew: h.crew,
+      dugAt: h.dugAt ?? undefined,
+      crew: h.crew ?? undefined,
       photos: h.photoCount,
       search: [h.number, line?.label, line ? LINE_KIND_LABELS[line.kind] : '', h.crew, h.material, h.condition, h.ticketNumber, h.surfaceType, h.notes, HOLE_STATUS_LABELS[h.status]]
         .filter(Boolean)
@@ -291,13 +293,15 @@ export interface HolesTableProps {
   rows: HoleRow[];
   ctx: HoleTableContext;
   frame: Omit<CsvFrame, 'exportedAt' | 'filters'>;
+  /** The order on opening (default: by hole number). */
+  initialSorting?: { id: string; desc: boolean }[];
 }
 
 /**
  * The test-hole register: sort by any column, filter by status, line, kind and quality level,
  * search, see each line's clearance status, and export the rows shown as CSV.
  */
-export function HolesTable({ rows, ctx, frame }: HolesTableProps) {
+export function HolesTable({ rows, ctx, frame, initialSorting = [{ id: 'number', desc: false }] }: HolesTableProps) {
   const columns = useMemo(() => buildColumns(ctx), [ctx]);
   const [moreFilters, setMoreFilters] = useState(false);
   const filtersId = useId();
@@ -306,7 +310,7 @@ export function HolesTable({ rows, ctx, frame }: HolesTableProps) {
     columns,
     data: rows,
     getRowId: (r) => String(r.hole.id),
-    initialState: { columnVisibility: HIDDEN, sorting: [{ id: 'number', desc: false }] },
+    initialState: { columnVisibility: HIDDEN, sorting: initialSorting },
     globalFilterFn: 'includesString',
     getColumnCanGlobalFilter: (column) => column.id === 'search',
     enableSortingRemoval: false,
