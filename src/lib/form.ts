@@ -12,7 +12,7 @@ import { isApiError } from './api-client';
 const formErrorMap: z.core.$ZodErrorMap = (issue) => {
   if (issue.code === 'invalid_type') {
     if (issue.input === undefined || issue.input === null || issue.input === '') return 'is required';
-    if (issue.expected === 'number') return 'must be a number';
+    if (issue.expected === 'number') return 'must be a number, with a point for decimals (2.5) and no thousands separators';
   }
   if (issue.code === 'invalid_format' && issue.format === 'email') return 'must be an e-mail address like name@example.com';
   if (issue.code === 'invalid_value') return 'choose one of the listed options';
@@ -31,11 +31,16 @@ export function useZodForm<S extends z.ZodType<FieldValues, FieldValues>>(
   });
 }
 
-/** For `register(name, { setValueAs })`: empty input → null, otherwise a number (NaN fails validation). */
+/**
+ * For `register(name, { setValueAs })`: empty input → null, otherwise a number (NaN fails
+ * validation). A comma is never read: "2,5" may be a decimal comma (2.5) or a thousands
+ * separator (25), and guessing wrong puts a line ten times too deep, so it is refused.
+ */
 export function asNumberOrNull(value: unknown): number | null {
   if (value === '' || value === null || value === undefined) return null;
   if (typeof value === 'number') return value;
-  return Number(String(value).trim().replace(/,/g, ''));
+  const text = String(value).trim();
+  return text === '' ? null : Number(text);
 }
 
 /** Like {@link asNumberOrNull} but empty → undefined, so a required number says "is required". */
