@@ -193,7 +193,7 @@ export function parseStation(text: string, style: StationStyle): number {
     const hint =
       partValue >= unit
         ? `the part after + must be below ${unit} in ${unit}-unit stations`
-        : `write ${digits} digits after + (e.g. ${whole!}+${part!.padStart(digits, '0')}${decimals !== undefined ? `.${decimals}` : ''})`;
+        : `write ${digits} digits after + (e.g. ${whole!}+${String(Number(part!)).padStart(digits, '0')}${decimals !== undefined ? `.${decimals}` : ''})`;
     const other = style === '100' && part!.length === 3 ? '; this looks like a 1000-unit station' : style === '1000' && part!.length === 2 ? '; this looks like a 100-unit station' : '';
     throw new GeometryError('INVALID_STATION', `"${text}" is not a ${unit}-unit station: ${hint}${other}`);
   }

@@ -33,7 +33,9 @@ describe('parseStation', () => {
   const badInput: [string, '100' | '1000', RegExp][] = [
     ['12+345.6', '100', /must be below 100/],
     ['1+23.45', '1000', /3 digits after \+/],
-    ['12+4.5', '100', /2 digits after \+/],
+    ['12+4.5', '100', /2 digits after \+ \(e\.g\. 12\+04\.5\)/],
+    // A leading zero too many: the example drops it rather than echoing the input back.
+    ['0+0501', '1000', /3 digits after \+ \(e\.g\. 0\+501\)/],
     ['', '100', /required/],
     ['abc', '100', /not a station/],
     ['12+', '100', /not a station/],
