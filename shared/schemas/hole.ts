@@ -49,7 +49,7 @@ function positionCheck(
     if (v.station == null) ctx.addIssue({ code: 'custom', path: ['station'], message: 'is required for a station/offset position' });
     if (v.offset == null) ctx.addIssue({ code: 'custom', path: ['offset'], message: 'is required for a station/offset position' });
     if (v.offset != null && v.offset > 0 && v.offsetSide == null) {
-      ctx.addIssue({ code: 'custom', path: ['offsetSide'], message: 'say which side, L or R' });
+      ctx.addIssue({ code: 'custom', path: ['offsetSide'], message: 'is required: choose L or R' });
     }
   } else if (v.positionSource !== undefined) {
     if (v.easting == null) ctx.addIssue({ code: 'custom', path: ['easting'], message: 'is required' });
@@ -57,6 +57,10 @@ function positionCheck(
   }
   if (v.positionSource === 'gps' && v.gpsAccuracy == null) {
     ctx.addIssue({ code: 'custom', path: ['gpsAccuracy'], message: 'a GPS position needs its accuracy' });
+  }
+  // The bottom of a line is never above the point its depth was measured to (top, centre or bottom).
+  if (v.depthToTop != null && v.depthToBottom != null && v.depthToBottom < v.depthToTop) {
+    ctx.addIssue({ code: 'custom', path: ['depthToBottom'], message: `is less than the depth to ${v.depthReference ?? 'top'} (${v.depthToTop}): the bottom of a line is below its top` });
   }
 }
 

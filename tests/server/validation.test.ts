@@ -70,6 +70,21 @@ const cases: { name: string; url: () => string; method: 'post' | 'patch' | 'put'
     paths: ['clientId', 'depthToTop'],
   },
   {
+    // Physically impossible (common practice: a line's bottom is below its top).
+    name: 'a hole whose line bottom is shallower than its top',
+    url: () => `${base()}/holes`,
+    method: 'post',
+    body: () => ({ clientId: randomUUID(), number: 'TH-9', lineId: f.line.id, positionSource: 'grid', easting: 1, northing: 2, depthToTop: 6.1, depthToBottom: 4.42 }),
+    paths: ['depthToBottom'],
+  },
+  {
+    name: 'a station/offset hole with an offset but no side',
+    url: () => `${base()}/holes`,
+    method: 'post',
+    body: () => ({ clientId: randomUUID(), number: 'TH-9', lineId: f.line.id, positionSource: 'station', boreId: f.bore.id, station: 1100, offset: 2.5 }),
+    paths: ['offsetSide'],
+  },
+  {
     name: 'a phone fix without its accuracy',
     url: () => `${base()}/holes`,
     method: 'post',

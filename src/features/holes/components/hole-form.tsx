@@ -121,7 +121,7 @@ export function HoleForm({ project, role, userName, lines, bores, holes, mode, o
       if (!values.boreId) need('boreId', 'choose the bore the station is on');
       if (!values.stationText.trim()) need('stationText');
       if (values.offset == null) need('offset');
-      else if (values.offset > 0 && !values.offsetSide) need('offsetSide', 'say which side, L or R');
+      else if (values.offset > 0 && !values.offsetSide) need('offsetSide', 'is required: choose L or R');
     } else if (values.positionSource !== 'gps') {
       if (values.easting == null) need('easting');
       if (values.northing == null) need('northing');
