@@ -32,13 +32,15 @@ const SORT_MARK = { asc: '▲', desc: '▼' } as const;
  * it has `rowSortingFeature`; columns without a sort function (display columns) get a plain
  * header.
  */
-export function SortableTable<TFeatures extends TableFeatures, TData extends RowData>({ table, label, caption, emptyText }: {
+export function SortableTable<TFeatures extends TableFeatures, TData extends RowData>({ table, label, caption, emptyText, rowClassName }: {
   table: Table<TFeatures, TData>;
   /** The region's accessible name ("Conflicts"). */
   label: string;
   /** The screen-reader caption ("Conflicts; column headers sort"). */
   caption: string;
   emptyText?: string;
+  /** Extra classes for a body row, from its data (a row that differs in kind, e.g. not yet on the server). */
+  rowClassName?: (row: TData) => string | undefined;
 }) {
   const rows = table.getRowModel().rows;
   if (emptyText !== undefined && rows.length === 0) {
@@ -78,7 +80,7 @@ export function SortableTable<TFeatures extends TableFeatures, TData extends Row
       ))}
     >
       {rows.map((row) => (
-        <tr key={row.id} className={tableClasses.row}>
+        <tr key={row.id} className={cn(tableClasses.row, rowClassName?.(row.original))}>
           {row_getVisibleCells(row).map((cell, i) => {
             const { numeric } = metaOf(cell.column.columnDef.meta);
             return i === 0 ? (

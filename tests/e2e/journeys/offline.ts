@@ -5,12 +5,13 @@
  * outbox replayed twice without a duplicate; an edit made offline that meets someone else's
  * newer save, shown and resolved; a field crew logging a hole on a line on no record with no
  * signal, the hole and its new unidentified line arriving once. Holes, lines and photos are
- * counted through the API itself.
+ * counted through the API itself. The Test holes register lists the kept holes while offline,
+ * marked as not sent and not linked, and each exactly once (the server's) after the signal returns.
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { Jimp } from 'jimp';
-import type { Page } from 'playwright-core';
+import type { Locator, Page } from 'playwright-core';
 import type { HoleDto, LineDto, PhotoDto, ProjectDto } from '../../../shared/api';
 import { LINE_KIND_LABELS } from '../../../shared/domain';
 import { DEMO_SCENARIOS } from '../../../seeds/demo';
@@ -57,6 +58,16 @@ async function holesNamed(call: Awaited<ReturnType<typeof apiSession>>, projectI
   return (await call<HoleDto[]>(`/api/projects/${projectId}/holes`)).filter((h) => h.number === number);
 }
 
+/** The register's row of a hole, found by its row header (the hole number, then "not sent" on a kept one). */
+function registerRows(page: Page, number: string): Locator {
+  return page
+    .getByRole('region', { name: 'Test holes' })
+    .getByRole('row')
+    .filter({ has: page.getByRole('rowheader', { name: new RegExp(`^${number}( not sent)?$`) }) });
+}
+
+const KEPT_BADGE = 'Kept on this phone — not sent';
+
 async function unsentBadge(page: Page, text: string) {
   await page.getByRole('banner').getByRole('button', { name: text }).waitFor({ timeout: 20_000 });
 }
@@ -92,6 +103,9 @@ export const OFFLINE_JOURNEYS: Journey[] = [
       await signIn(page, baseUrl, 'field');
       // One visit online: the service worker installs and keeps the shell; the screens are read once.
       await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
+      await page.goto(`${baseUrl}/projects/${projectId}/holes`);
+      await page.getByRole('region', { name: 'Test holes' }).waitFor({ timeout: 10_000 });
+      check((await page.getByText(KEPT_BADGE).count()) === 0, 'the register shows a kept hole before any was logged');
       await page.goto(`${baseUrl}/projects/${projectId}/holes/new`);
       await page.getByRole('form', { name: 'Log a test hole' }).waitFor({ timeout: 10_000 });
       check(await page.evaluate(() => navigator.serviceWorker.controller !== null), 'no service worker controls the page after the first visit');
@@ -118,6 +132,21 @@ export const OFFLINE_JOURNEYS: Journey[] = [
         await page.screenshot({ path: join(shots, 'offline-outbox-after-reload.png'), fullPage: true });
         for (const n of HOLES) check((await holesNamed(call, projectId, n)).length === 0, `${n} reached the server while the phone was offline`);
 
+        // The Test holes register, opened with no signal, lists both kept holes: once each, marked
+        // "not sent", with their photo count from the phone, and no link to a page the server lacks.
+        await page.goto(`${baseUrl}/projects/${projectId}/holes`);
+        await page.getByRole('region', { name: 'Test holes' }).waitFor({ timeout: 15_000 });
+        for (const [i, n] of HOLES.entries()) {
+          const row = registerRows(page, n);
+          await row.getByText(KEPT_BADGE).waitFor({ timeout: 10_000 });
+          check((await row.count()) === 1, `${n} is listed ${await row.count()} times in the register while offline`);
+          check((await row.getByRole('link').count()) === 0, `the kept ${n} links to a hole page the server does not have`);
+          const photos = (await row.getByRole('cell').last().innerText()).replace(/\s+/g, ' ').trim();
+          check(photos === `${i === 0 ? 2 : 1} on this phone`, `the kept ${n} shows photos "${photos}"`);
+        }
+        await page.getByRole('group', { name: 'Filter by status' }).getByRole('button', { name: /^Kept on this phone\s*2$/ }).waitFor();
+        await page.screenshot({ path: join(shots, 'offline-register-kept.png'), fullPage: true });
+
         // Signing out with unsent records warns, and "Export unsent" downloads them for the office.
         await page.getByRole('banner').getByRole('button', { name: 'Sign out' }).click();
         const warning = page.getByRole('alertdialog', { name: 'Unsent records' });
@@ -137,9 +166,23 @@ export const OFFLINE_JOURNEYS: Journey[] = [
       } finally {
         await context.setOffline(false);
       }
-      // Signal back: the outbox sends by itself, oldest first.
+      // Signal back: the outbox sends by itself, oldest first. The register, watched meanwhile,
+      // never lists a hole twice, and ends with each one once, the server's (linked, no badge).
+      const deadline = Date.now() + 30_000;
+      for (;;) {
+        const counts = await Promise.all(HOLES.map((n) => registerRows(page, n).count()));
+        check(counts.every((c) => c <= 1), `the register lists ${HOLES.map((n, i) => `${n} ${counts[i]}×`).join(', ')} while sending`);
+        const links = await Promise.all(HOLES.map((n) => registerRows(page, n).getByRole('link', { name: n, exact: true }).count()));
+        if (links.every((c) => c === 1) && (await page.getByText(KEPT_BADGE).count()) === 0) break;
+        check(Date.now() < deadline, 'the sent holes did not replace the kept rows in the register within 30 s');
+        await page.waitForTimeout(100);
+      }
+      for (const n of HOLES) check((await registerRows(page, n).count()) === 1, `${n} is not listed exactly once after sending`);
+      await page.screenshot({ path: join(shots, 'offline-register-sent.png'), fullPage: true });
       await unsentBadge(page, 'All sent');
+      await page.goto(`${baseUrl}/projects/${projectId}/holes/new`);
       await page.getByRole('form', { name: 'Log a test hole' }).waitFor({ timeout: 15_000 });
+      await page.getByRole('banner').getByRole('button', { name: 'All sent' }).click();
       const outbox = page.getByRole('region', { name: 'Outbox' });
       for (const n of HOLES) await outbox.getByRole('listitem', { name: `Test hole ${n}` }).getByText('Sent', { exact: true }).waitFor();
       await page.screenshot({ path: join(shots, 'offline-all-sent.png'), fullPage: true });

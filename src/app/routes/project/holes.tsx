@@ -1,4 +1,5 @@
-import { useMemo } from 'react';
+import { useEffect, useMemo, useRef } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
 import { useLocation } from 'react-router-dom';
 import { can } from '@shared/permissions';
 import { SafetyCautions } from '@/components/safety-cautions';
@@ -9,14 +10,21 @@ import { useSignedInUser } from '@/features/auth/api/get-session';
 import { useBores } from '@/features/bores/api/get-bores';
 import { useClearances } from '@/features/holes/api/get-clearances';
 import { useHoles } from '@/features/holes/api/get-holes';
-import { HolesTable, toRows, type HoleTableContext } from '@/features/holes/components/holes-table';
+import { invalidateAfterHoleWrite } from '@/features/holes/api/invalidate';
+import { HolesTable, type HoleTableContext } from '@/features/holes/components/holes-table';
+import { registerRows } from '@/features/holes/utils/kept-rows';
 import { worstStatusByLine } from '@/features/holes/utils/labels';
 import { useLines } from '@/features/lines/api/get-lines';
 import { formatDateTime } from '@/lib/format';
 import { useWorkspace } from './workspace-context';
 import { ImportUnsentButton } from '@/features/outbox/components/import-unsent';
+import { useOutbox } from '@/features/outbox/use-outbox';
 
-/** Test holes: the register with filters, clearance status and CSV export; links to log a hole and to import survey shots. */
+/**
+ * Test holes: the register with filters, clearance status and CSV export; links to log a hole and
+ * to import survey shots. Holes of this project kept on this phone (the outbox) and not on the
+ * server yet are listed too, marked, until the server's copy replaces them (same client id).
+ */
 export default function HolesTab() {
   const { project, units } = useWorkspace();
   const user = useSignedInUser();
@@ -25,7 +33,21 @@ export default function HolesTab() {
   const lines = useLines(project.id);
   const bores = useBores(project.id);
   const clearances = useClearances(project.id);
+  const outbox = useOutbox();
+  const queryClient = useQueryClient();
   const deleted = (location.state as { deleted?: string } | null)?.deleted;
+
+  // A kept hole the server has now kept (sent by the header's "Send now", an import or the
+  // background sender) but that this list does not hold yet: read the list again, once per hole.
+  const refreshedFor = useRef(new Set<string>());
+  useEffect(() => {
+    if (!holes.data || !outbox) return;
+    const onServer = new Set(holes.data.map((h) => h.clientId));
+    const arrived = outbox.filter((r) => r.projectId === project.id && r.holeId != null && !onServer.has(r.clientId) && !refreshedFor.current.has(r.clientId));
+    if (arrived.length === 0) return;
+    for (const r of arrived) refreshedFor.current.add(r.clientId);
+    void invalidateAfterHoleWrite(queryClient);
+  }, [holes.data, outbox, project.id, queryClient]);
 
   const ctx: HoleTableContext = useMemo(
     () => ({
@@ -38,15 +60,40 @@ export default function HolesTab() {
     }),
     [units, project.id, lines.data, bores.data, clearances.data, clearances.isSuccess],
   );
-  const rows = useMemo(() => toRows(holes.data ?? [], ctx), [holes.data, ctx]);
+  const rows = useMemo(() => registerRows(holes.data ?? [], outbox ?? [], ctx), [holes.data, outbox, ctx]);
+  const serverCount = holes.data?.length ?? 0;
 
   const canLog = can(user.role, 'hole.create');
   const canImport = can(user.role, 'hole.survey');
 
+  const table =
+    rows.length > 0 ? (
+      <HolesTable
+        rows={rows}
+        ctx={ctx}
+        frame={{
+          projectName: project.name,
+          crsCode: project.crsCode,
+          unit: project.unit,
+          verticalDatum: project.verticalDatum,
+          clearancesCheckedAt: clearances.data?.checkedAt ?? null,
+          total: serverCount,
+          fileStem: project.name.replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 40).toLowerCase() || 'project',
+        }}
+      />
+    ) : null;
+
   let body;
   if (holes.isPending) body = <Loading label="Loading test holes…" />;
-  else if (holes.isError) body = <ProblemAlert error={holes.error} />;
-  else if (holes.data.length === 0)
+  else if (holes.isError)
+    // The server's list could not be read (no signal and no copy on the phone): holes kept here still show.
+    body = (
+      <div className="space-y-3">
+        <ProblemAlert error={holes.error} />
+        {table}
+      </div>
+    );
+  else if (rows.length === 0)
     body = (
       <EmptyState
         title="No test holes yet"
@@ -68,19 +115,7 @@ export default function HolesTab() {
   else
     body = (
       <div className="space-y-3">
-        <HolesTable
-          rows={rows}
-          ctx={ctx}
-          frame={{
-            projectName: project.name,
-            crsCode: project.crsCode,
-            unit: project.unit,
-            verticalDatum: project.verticalDatum,
-            clearancesCheckedAt: clearances.data?.checkedAt ?? null,
-            total: rows.length,
-            fileStem: project.name.replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 40).toLowerCase() || 'project',
-          }}
-        />
+        {table}
         <p className="text-xs text-ink-500">
           Depths are below ground, to the reference shown. Elevations are in {project.verticalDatum}; a surveyed top of line wins over ground − depth and
           is marked “surveyed”. Clearance status is the line’s worst against any bore

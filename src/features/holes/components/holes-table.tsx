@@ -28,6 +28,8 @@ import { CellNote, SortableTable, type SortableColumnMeta } from '@/components/u
 import { FilterChips } from '@/components/ui/filter-chips';
 import { Badge } from '@/components/ui/states';
 import { formatCoordinate, formatDateTime, formatLength, formatOffset } from '@/lib/format';
+import { OutboxStatusBadge } from '@/features/outbox/components/outbox-status';
+import type { OutboxStatus } from '@/features/outbox/outbox-store';
 import { holesCsv, type CsvFrame } from '../utils/holes-csv';
 import { CLEARANCE_LABELS, HOLE_STATUS_LABELS, REFERENCE_LABELS, SOURCE_LABELS, clearanceRank, type LineClearanceSummary } from '../utils/labels';
 import { ClearanceBadge, HoleStatusBadge } from './hole-status';
@@ -58,6 +60,62 @@ export interface HoleRow {
   photos: number;
   /** Text the search box looks through. */
   search: string;
+  /**
+   * Set on a hole kept on this phone (the outbox) that the server does not have yet: it has no
+   * page to open, its status is the record's, and it is left out of the CSV export.
+   */
+  kept?: KeptInfo;
+}
+
+/** What the register shows of a kept record: its state in the outbox, as the header's list shows it. */
+export interface KeptInfo {
+  clientId: string;
+  status: OutboxStatus;
+  /** The server's words when it refused the hole. */
+  reason?: string;
+  /** The label of the new unidentified line the hole was logged on, if so. */
+  newLine: string | null;
+  /** A photo the server refused, with its reason. */
+  photoProblem?: string;
+}
+
+/** The status chip's and filter's value for kept rows (beside the hole statuses). */
+export const KEPT_FILTER = 'kept';
+export const KEPT_CHIP_LABEL = 'Kept on this phone';
+export const KEPT_BADGE = 'Kept on this phone — not sent';
+
+/** The status filter: a hole status matches only holes the server has; `kept` matches only kept ones. */
+export function statusMatches(row: Pick<HoleRow, 'status' | 'kept'>, value: unknown): boolean {
+  if (value == null) return true;
+  if (value === KEPT_FILTER) return row.kept != null;
+  return row.kept == null && row.status === value;
+}
+
+/**
+ * What the CSV export writes of the rows shown: kept holes are not on the server, so the file (a
+ * record of the register) leaves them out, and its filter line says how many it left out.
+ */
+export function exportableRows(shown: readonly HoleRow[]): { rows: HoleRow[]; leftOut: string } {
+  const rows = shown.filter((r) => !r.kept);
+  const n = shown.length - rows.length;
+  return { rows, leftOut: n > 0 ? `${n} ${n === 1 ? 'hole' : 'holes'} kept on this phone and not sent left out` : '' };
+}
+
+/** A kept record's state: the badge, then what the outbox says (sending, refused with the reason). */
+function KeptStatus({ kept }: { kept: KeptInfo }) {
+  return (
+    <span className="inline-flex max-w-64 flex-col items-start gap-1 whitespace-normal">
+      <Badge className="border border-dashed border-caution-700 bg-caution-100 text-caution-900" title="Not on the server yet: sent from this phone when the signal returns">
+        {KEPT_BADGE}
+      </Badge>
+      {kept.status === 'local' ? (
+        <span className="text-xs text-ink-600">waiting for signal · see the unsent list at the top</span>
+      ) : (
+        <OutboxStatusBadge status={kept.status} reason={kept.reason} />
+      )}
+      {kept.photoProblem && <OutboxStatusBadge status="refused" reason={kept.photoProblem} />}
+    </span>
+  );
 }
 
 export interface HoleTableContext {
@@ -199,18 +257,28 @@ function buildColumns(ctx: HoleTableContext) {
     helper.accessor('number', {
       header: 'Hole',
       sortFn: 'alphanumeric',
-      cell: (info) => (
-        <Link to={`/projects/${ctx.projectId}/holes/${info.row.original.hole.id}`} className="font-semibold text-brand-700 underline-offset-2 hover:underline">
-          {info.getValue()}
-        </Link>
-      ),
+      cell: (info) =>
+        info.row.original.kept ? (
+          // Not on the server yet: no page to open; its state is in the status cell and the header's unsent list.
+          <span className="inline-flex flex-col">
+            <span className="font-semibold text-ink-800">{info.getValue()}</span>
+            <CellNote>not sent</CellNote>
+          </span>
+        ) : (
+          <Link to={`/projects/${ctx.projectId}/holes/${info.row.original.hole.id}`} className="font-semibold text-brand-700 underline-offset-2 hover:underline">
+            {info.getValue()}
+          </Link>
+        ),
     }),
     helper.accessor('statusOrder', {
       id: 'status',
       header: 'Status',
       sortFn: 'basic',
-      filterFn: (row: Row<typeof features, HoleRow>, _id: string, value: unknown) => value == null || row.original.status === value,
-      cell: (info) => <HoleStatusBadge status={info.row.original.status} />,
+      filterFn: (row: Row<typeof features, HoleRow>, _id: string, value: unknown) => statusMatches(row.original, value),
+      cell: (info) => {
+        const kept = info.row.original.kept;
+        return kept ? <KeptStatus kept={kept} /> : <HoleStatusBadge status={info.row.original.status} />;
+      },
     }),
     helper.accessor('lineId', {
       id: 'line',
@@ -222,6 +290,7 @@ function buildColumns(ctx: HoleTableContext) {
         return (
           <span className="inline-flex max-w-56 min-w-36 flex-col whitespace-normal">
             <span className="font-medium">{r.lineLabel}</span>
+            {r.kept?.newLine != null && <span className="text-xs text-ink-600">new line, made when the hole is sent</span>}
             {r.lineKind && (
               <span className="text-xs text-ink-600">
                 <KindSwatch kind={r.lineKind} />
@@ -243,6 +312,7 @@ function buildColumns(ctx: HoleTableContext) {
       sortUndefined: 'last',
       cell: (info) => {
         const c = info.row.original.clearance;
+        if (info.row.original.kept?.newLine != null) return <span className="text-xs text-ink-500">not checked until sent</span>;
         if (!ctx.clearancesKnown) return <span className="text-xs text-ink-500">not available</span>;
         if (!c) return <span className="text-xs text-ink-500" title="The line is not near any bore">near no bore</span>;
         return <ClearanceBadge status={c.status} detail={c.bores.map((b) => `${b.name}: ${CLEARANCE_LABELS[b.status]}`).join('; ')} />;
@@ -282,12 +352,28 @@ function buildColumns(ctx: HoleTableContext) {
     elevationColumn(ctx, 'top', 'Top of line elev.', (r) => <CellNote>{r.topSource}</CellNote>),
     helper.accessor('crew', { header: 'Crew', sortFn: 'alphanumeric', sortUndefined: 'last', cell: (info) => <span className="inline-block max-w-48 min-w-32 whitespace-normal">{info.getValue() ?? '—'}</span> }),
     helper.accessor('dugAt', { header: 'Dug at', sortFn: 'alphanumeric', sortUndefined: 'last', cell: (info) => formatDateTime(info.getValue()) }),
-    helper.accessor('photos', { header: 'Photos', sortFn: 'basic', meta: { numeric: true } }),
+    helper.accessor('photos', {
+      header: 'Photos',
+      sortFn: 'basic',
+      meta: { numeric: true },
+      cell: (info) =>
+        info.row.original.kept ? (
+          <span>
+            {info.getValue()}
+            <CellNote>on this phone</CellNote>
+          </span>
+        ) : (
+          info.getValue()
+        ),
+    }),
     helper.accessor('search', { header: 'Search', filterFn: 'includesString' }),
   ]);
 }
 
 const HIDDEN = { kind: false, search: false };
+
+/** A kept row: tinted caution (every cell, the held first one too) with a dashed rule above. */
+const KEPT_ROW_CLASS = 'border-t border-dashed border-t-caution-700 *:bg-caution-50';
 
 export interface HolesTableProps {
   rows: HoleRow[];
@@ -295,13 +381,17 @@ export interface HolesTableProps {
   frame: Omit<CsvFrame, 'exportedAt' | 'filters'>;
   /** The order on opening (default: by hole number). */
   initialSorting?: { id: string; desc: boolean }[];
+  /** Column filters on opening (none by default), e.g. `[{ id: 'status', value: 'kept' }]`. */
+  initialFilters?: { id: string; value: unknown }[];
+  /** Search text on opening (none by default). */
+  initialSearch?: string;
 }
 
 /**
  * The test-hole register: sort by any column, filter by status, line, kind and quality level,
  * search, see each line's clearance status, and export the rows shown as CSV.
  */
-export function HolesTable({ rows, ctx, frame, initialSorting = [{ id: 'number', desc: false }] }: HolesTableProps) {
+export function HolesTable({ rows, ctx, frame, initialSorting = [{ id: 'number', desc: false }], initialFilters = [], initialSearch = '' }: HolesTableProps) {
   const columns = useMemo(() => buildColumns(ctx), [ctx]);
   const [moreFilters, setMoreFilters] = useState(false);
   const filtersId = useId();
@@ -309,8 +399,8 @@ export function HolesTable({ rows, ctx, frame, initialSorting = [{ id: 'number',
     features,
     columns,
     data: rows,
-    getRowId: (r) => String(r.hole.id),
-    initialState: { columnVisibility: HIDDEN, sorting: initialSorting },
+    getRowId: (r) => (r.kept ? `kept-${r.kept.clientId}` : String(r.hole.id)),
+    initialState: { columnVisibility: HIDDEN, sorting: initialSorting, columnFilters: initialFilters, ...(initialSearch ? { globalFilter: initialSearch } : {}) },
     globalFilterFn: 'includesString',
     getColumnCanGlobalFilter: (column) => column.id === 'search',
     enableSortingRemoval: false,
@@ -323,15 +413,19 @@ export function HolesTable({ rows, ctx, frame, initialSorting = [{ id: 'number',
   const shown = table.getRowModel().rows;
   const anyFilter = filters.length > 0 || search !== '';
 
-  const status = (filterOf('status') as HoleStatus | undefined) ?? 'all';
-  const counts = Object.fromEntries(HOLE_STATUSES.map((s) => [s, rows.filter((r) => r.status === s).length])) as Record<HoleStatus, number>;
+  const status = (filterOf('status') as HoleStatus | typeof KEPT_FILTER | undefined) ?? 'all';
+  // Each hole status counts the server's holes only; kept holes have a chip of their own, shown while there are any.
+  const keptCount = rows.filter((r) => r.kept).length;
+  const counts = Object.fromEntries(HOLE_STATUSES.map((s) => [s, rows.filter((r) => statusMatches(r, s)).length])) as Record<HoleStatus, number>;
+  const { rows: exported, leftOut } = exportableRows(shown.map((r) => r.original));
   const lineOptions = useMemo(() => [...new Map(rows.map((r) => [r.lineId, r.lineLabel])).entries()].sort((a, b) => a[1].localeCompare(b[1])), [rows]);
   const kindOptions = useMemo(() => [...new Set(rows.map((r) => r.lineKind).filter((k): k is LineKind => k != null))], [rows]);
 
   /** The filters in force, in words, for the export header. */
   function filterWords(): string {
     const words: string[] = [];
-    if (status !== 'all') words.push(`status ${HOLE_STATUS_LABELS[status]}`);
+    if (status === KEPT_FILTER) words.push(`status ${KEPT_CHIP_LABEL}`);
+    else if (status !== 'all') words.push(`status ${HOLE_STATUS_LABELS[status]}`);
     const line = filterOf('line');
     if (line != null) words.push(`line ${lineOptions.find(([id]) => id === Number(line))?.[1] ?? line}`);
     const kind = filterOf('kind');
@@ -339,12 +433,14 @@ export function HolesTable({ rows, ctx, frame, initialSorting = [{ id: 'number',
     const ql = filterOf('ql');
     if (ql != null) words.push(`quality level ${ql}`);
     if (search) words.push(`search "${search}"`);
-    return words.length ? `filtered: ${words.join(', ')}` : '';
+    const parts = words.length ? [`filtered: ${words.join(', ')}`] : [];
+    if (leftOut) parts.push(leftOut);
+    return parts.join('; ');
   }
 
   function exportCsv() {
     const csv = holesCsv(
-      shown.map((r) => r.original),
+      exported,
       { ...frame, exportedAt: new Date().toISOString(), filters: filterWords() },
       { unit: ctx.unit, stationStyle: ctx.stationStyle },
     );
@@ -365,7 +461,11 @@ export function HolesTable({ rows, ctx, frame, initialSorting = [{ id: 'number',
         label="Filter by status"
         value={status}
         onChange={(v) => table.getColumn('status')?.setFilterValue(v === 'all' ? undefined : v)}
-        options={[{ value: 'all' as const, label: 'All', count: rows.length }, ...HOLE_STATUSES.map((s) => ({ value: s, label: HOLE_STATUS_LABELS[s], count: counts[s] }))]}
+        options={[
+          { value: 'all' as const, label: 'All', count: rows.length },
+          ...HOLE_STATUSES.map((s) => ({ value: s, label: HOLE_STATUS_LABELS[s], count: counts[s] })),
+          ...(keptCount > 0 || status === KEPT_FILTER ? [{ value: KEPT_FILTER, label: KEPT_CHIP_LABEL, count: keptCount }] : []),
+        ]}
       />
       <div className="grid grid-cols-[1fr_auto] gap-2 sm:grid-cols-[minmax(12rem,2fr)_repeat(3,minmax(8rem,1fr))] sm:items-end">
         <label className="flex flex-col gap-1 text-sm font-medium text-ink-800">
@@ -414,6 +514,7 @@ export function HolesTable({ rows, ctx, frame, initialSorting = [{ id: 'number',
       <div className="flex flex-wrap items-center justify-between gap-2">
         <p className="text-sm text-ink-600" aria-live="polite">
           Showing {shown.length} of {rows.length} {rows.length === 1 ? 'hole' : 'holes'}
+          {keptCount > 0 && `, ${keptCount} kept on this phone and not sent (left out of the CSV)`}
         </p>
         <div className="flex flex-wrap gap-2">
           {anyFilter && (
@@ -428,12 +529,18 @@ export function HolesTable({ rows, ctx, frame, initialSorting = [{ id: 'number',
               Clear filters
             </Button>
           )}
-          <Button variant="secondary" size="sm" onClick={exportCsv} disabled={shown.length === 0}>
-            Export CSV ({shown.length})
+          <Button variant="secondary" size="sm" onClick={exportCsv} disabled={exported.length === 0}>
+            Export CSV ({exported.length})
           </Button>
         </div>
       </div>
-      <SortableTable table={table} label="Test holes" caption="Test holes; column headers sort" emptyText="No holes match these filters." />
+      <SortableTable
+        table={table}
+        label="Test holes"
+        caption="Test holes; column headers sort"
+        emptyText="No holes match these filters."
+        rowClassName={(r) => (r.kept ? KEPT_ROW_CLASS : undefined)}
+      />
     </div>
   );
 }
