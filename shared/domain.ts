@@ -97,6 +97,8 @@ export const LINE_KIND_COLOURS: Record<LineKind, string> = {
 
 export const LINE_STATUSES = ['active', 'abandoned', 'unknown'] as const;
 export type LineStatus = (typeof LINE_STATUSES)[number];
+/** The words every screen and export uses for a line's status. */
+export const LINE_STATUS_LABELS: Record<LineStatus, string> = { active: 'In service', abandoned: 'Abandoned', unknown: 'Status unknown' };
 
 /** ASCE/UESI/CI 38-22 utility quality levels, D (records) to A (exposed and measured). */
 export const QUALITY_LEVELS = ['D', 'C', 'B', 'A'] as const;
@@ -141,3 +143,21 @@ export const CONFLICT_STATUS_LABELS: Record<ConflictStatus, string> = {
 /** Computed clearance status of a line against a bore, worst first. */
 export const CLEARANCE_STATUSES = ['overlap', 'conflict', 'marginal', 'unverified', 'clear'] as const;
 export type ClearanceStatus = (typeof CLEARANCE_STATUSES)[number];
+
+/** The words every screen and file uses for the computed status of a line against a bore (SPEC §4). */
+export const CLEARANCE_STATUS_LABELS: Record<ClearanceStatus, string> = {
+  overlap: 'Overlap',
+  conflict: 'Conflict',
+  marginal: 'Marginal',
+  unverified: 'Unverified',
+  clear: 'Clear',
+};
+
+/** What each status means, for legends and tooltips. */
+export const CLEARANCE_STATUS_MEANINGS: Record<ClearanceStatus, string> = {
+  overlap: 'the line and the casing overlap (clearance below zero)',
+  conflict: 'clearance below the requirement',
+  marginal: 'meets the requirement by less than the allowance (bore tolerance + location uncertainty)',
+  unverified: 'no dug test hole near the crossing or closest point',
+  clear: 'meets the requirement with the allowance to spare',
+};

@@ -2,7 +2,7 @@ import ExcelJS from 'exceljs';
 import PDFDocument from 'pdfkit';
 import type { ConflictRowDto } from '@shared/api';
 import { matchesConflictFilter } from '@shared/conflicts';
-import { CONFLICT_STATUS_LABELS, type ClearanceStatus } from '@shared/domain';
+import { CLEARANCE_STATUS_LABELS, CONFLICT_STATUS_LABELS } from '@shared/domain';
 import type { CsvIdStyle } from '@shared/schemas/export';
 import type { ConflictRegister } from '../conflicts/conflict-rows';
 import { csvDocument, type CsvColumn } from './csv';
@@ -31,14 +31,6 @@ import {
 /** A register row as the conflict list prints it. */
 type Row = ConflictRowDto;
 
-/** Our words for the computed status (the Conflicts screen uses the same). */
-export const CLEARANCE_STATUS_WORDS: Record<ClearanceStatus, string> = {
-  overlap: 'Overlap',
-  conflict: 'Short of requirement',
-  marginal: 'Within allowance',
-  unverified: 'Unverified',
-  clear: 'Clear',
-};
 
 type Cell = string | number | Date | null;
 
@@ -74,7 +66,7 @@ export function conflictColumns(frame: ExportFrame): ConflictColumn[] {
   return [
     { key: 'number', header: 'Conflict', type: 'text', id: true, width: 10, value: (r) => r.number },
     { key: 'conflictWith', user: true, header: 'Bore or pit', type: 'text', width: 22, value: conflictWith },
-    { key: 'computed', header: 'Last check', type: 'text', width: 18, value: (r) => CLEARANCE_STATUS_WORDS[r.computedStatus] },
+    { key: 'computed', header: 'Last check', type: 'text', width: 18, value: (r) => CLEARANCE_STATUS_LABELS[r.computedStatus] },
     { key: 'stationRange', header: 'Station range', type: 'text', width: 22, value: (r) => stationRange(r, frame) },
     { key: 'station', header: 'Station (governing)', type: 'text', width: 14, value: (r) => stationText(r.station, frame) },
     { key: 'offset', header: `Offset (${u})`, type: 'number', width: 10, value: (r) => round4(r.offset) },
@@ -251,7 +243,7 @@ function pdfColumns(frame: ExportFrame): PdfColumn[] {
       width: 76,
       text: (r) => [r.required == null ? '' : `req. ${len(r.required)}`, r.clearance == null ? '' : `meas. ${len(r.clearance)}${r.governing ? ` (${r.governing})` : ''}`, r.margin == null ? '' : `margin ${len(r.margin)}`].filter(Boolean).join('\n'),
     },
-    { header: 'Last check', width: 54, text: (r) => CLEARANCE_STATUS_WORDS[r.computedStatus] },
+    { header: 'Last check', width: 54, text: (r) => CLEARANCE_STATUS_LABELS[r.computedStatus] },
     { header: 'Status, resolution', width: 84, text: (r) => [CONFLICT_STATUS_LABELS[r.status], r.resolutionNote ?? '', r.responsibleParty ? `Responsible: ${r.responsibleParty}` : '', r.assigneeName ? `Assignee: ${r.assigneeName}` : ''].filter(Boolean).join('\n') },
     { header: 'Test holes', width: 46, text: holeNumbers },
     {

@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
 import type { ConflictRowDto } from '@shared/api';
-import { LINE_STATUSES, type LinearUnit, type StationStyle } from '@shared/domain';
+import { LINE_STATUS_LABELS, type LinearUnit, type StationStyle } from '@shared/domain';
 import { formatStation } from '@shared/geometry';
 import { KindSwatch } from '@/components/kind-swatch';
 import { QualityLevelBadge } from '@/components/quality-level';
@@ -18,12 +18,11 @@ function Row({ label, children }: { label: string; children: React.ReactNode }) 
   return (
     <div className="grid grid-cols-[minmax(8rem,40%)_1fr] gap-2 border-b border-ink-100 py-1.5 last:border-b-0">
       <dt className="text-sm text-ink-600">{label}</dt>
-      <dd className="text-sm text-ink-900">{children}</dd>
+      <dd className="min-w-0 text-sm [overflow-wrap:anywhere] text-ink-900">{children}</dd>
     </div>
   );
 }
 
-const LINE_STATUS_LABELS: Record<(typeof LINE_STATUSES)[number], string> = { active: 'In service', abandoned: 'Abandoned', unknown: 'Unknown' };
 
 /** Where the conflict is and how close it comes, from the last clearance check. */
 export function ConflictFiguresPanel({ row, frame }: { row: ConflictRowDto; frame: FiguresFrame }) {

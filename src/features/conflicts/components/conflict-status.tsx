@@ -1,14 +1,7 @@
-import { CONFLICT_STATUS_LABELS, type ClearanceStatus, type ConflictStatus } from '@shared/domain';
+import { CLEARANCE_STATUS_LABELS, CONFLICT_STATUS_LABELS, type ClearanceStatus, type ConflictStatus } from '@shared/domain';
 import { Badge } from '@/components/ui/states';
 
-/** Our names for the computed status of a line against a bore, worst first. */
-export const CLEARANCE_STATUS_LABELS: Record<ClearanceStatus, string> = {
-  overlap: 'Overlap',
-  conflict: 'Short of requirement',
-  marginal: 'Within allowance',
-  unverified: 'Unverified',
-  clear: 'Clear',
-};
+export { CLEARANCE_STATUS_LABELS };
 
 const CLEARANCE_TONES: Record<ClearanceStatus, string> = {
   overlap: 'bg-danger-600 text-white',

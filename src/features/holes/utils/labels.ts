@@ -29,21 +29,8 @@ export const REFERENCE_LABELS: Record<DepthReference, string> = { top: 'to top',
 
 export const METHOD_LABELS: Record<ExcavationMethod, string> = { air: 'Air (vacuum)', water: 'Water (hydro)' };
 
-export const CLEARANCE_LABELS: Record<ClearanceStatus, string> = {
-  overlap: 'Overlap',
-  conflict: 'Conflict',
-  marginal: 'Marginal',
-  unverified: 'Unverified',
-  clear: 'Clear',
-};
+export { CLEARANCE_STATUS_LABELS as CLEARANCE_LABELS, CLEARANCE_STATUS_MEANINGS as CLEARANCE_MEANINGS } from '@shared/domain';
 
-export const CLEARANCE_MEANINGS: Record<ClearanceStatus, string> = {
-  overlap: 'the casing would hit the line',
-  conflict: 'short of the required clearance',
-  marginal: 'meets the requirement but inside the allowance',
-  unverified: 'no dug hole near the crossing or closest point',
-  clear: 'meets the requirement with the allowance',
-};
 
 /** Worst status first (index 0 = overlap). */
 export function clearanceRank(status: ClearanceStatus): number {

@@ -13,21 +13,8 @@ export const STATUS_COLOURS: Record<ClearanceStatus, string> = {
   clear: '#15803d',
 };
 
-export const STATUS_LABELS: Record<ClearanceStatus, string> = {
-  overlap: 'Overlap',
-  conflict: 'Conflict',
-  marginal: 'Marginal',
-  unverified: 'Unverified',
-  clear: 'Clear',
-};
+export { CLEARANCE_STATUS_LABELS as STATUS_LABELS, CLEARANCE_STATUS_MEANINGS as STATUS_MEANINGS } from '@shared/domain';
 
-export const STATUS_MEANINGS: Record<ClearanceStatus, string> = {
-  overlap: 'the line and the casing overlap (clearance below zero)',
-  conflict: 'clearance below the requirement',
-  marginal: 'meets the requirement by less than the allowance (bore tolerance + location uncertainty)',
-  unverified: 'no dug test hole near the crossing or closest point',
-  clear: 'meets the requirement with the allowance to spare',
-};
 
 export const STATUS_ORDER: Record<ClearanceStatus, number> = { overlap: 0, conflict: 1, marginal: 2, unverified: 3, clear: 4 };
 
