@@ -39,8 +39,25 @@ function explainStatus(error: ApiError): string | null {
 }
 
 /**
- * Shows a failed request: the problem's title and detail, and its field errors except those a
- * form already shows beside its inputs (`fields`).
+ * Our headings for failed requests. The server's problem titles are the HTTP reason phrases
+ * ("Unauthorized", "Conflict"), which read oddly to a crew — and "Conflict" is also our word for
+ * a clearance short of its requirement.
+ */
+const PROBLEM_HEADINGS: Record<number, string> = {
+  400: 'Not accepted: check these values',
+  401: 'Not signed in',
+  403: 'Not allowed for your role',
+  404: 'Not found',
+  409: 'Not saved',
+  413: 'Too large',
+  415: 'File type not accepted',
+  429: 'Too many attempts',
+  500: 'Server error',
+};
+
+/**
+ * Shows a failed request: our heading for its status, the problem's detail, and its field errors
+ * except those a form already shows beside its inputs (`fields`).
  */
 export function ProblemAlert({ error, fields = [], className }: { error: unknown; fields?: readonly string[]; className?: string }) {
   if (!error) return null;
@@ -55,7 +72,7 @@ export function ProblemAlert({ error, fields = [], className }: { error: unknown
   const explanation = explainStatus(error);
   const fieldErrors = error.fieldErrors.filter((e) => !fields.includes(e.path));
   // A stale version gets our own wording: the form has already been refilled with the current record.
-  const title = error.isStale ? 'Not saved: someone else changed this first' : problem.title;
+  const title = error.isStale ? 'Not saved: someone else changed this first' : (PROBLEM_HEADINGS[problem.status] ?? problem.title);
   const detail = error.isStale ? null : problem.detail;
   return (
     <Alert tone="danger" title={title} className={className}>
