@@ -19,6 +19,7 @@ import { PhotoUpload } from '@/features/holes/components/photo-upload';
 import { ReviewPanel } from '@/features/holes/components/review-panel';
 import { SurveyForm } from '@/features/holes/components/survey-form';
 import type { FieldContext } from '@/features/holes/utils/hole-fields';
+import { holeRights } from '@/features/holes/utils/rights';
 import { useLines } from '@/features/lines/api/get-lines';
 import { NotFound } from '../not-found';
 import { useWorkspace } from './workspace-context';
@@ -62,12 +63,7 @@ function HoleBody({ hole }: { hole: HoleDto }) {
   const remove = useDeleteHole(project.id, hole.id);
   const [confirmDelete, setConfirmDelete] = useState(false);
 
-  const locked = hole.status === 'reviewed';
-  const own = user.role !== 'field' || hole.createdById === user.id;
-  const canEdit = can(user.role, 'hole.update') && own && !locked;
-  const canDelete = can(user.role, 'hole.delete') && own && !locked;
-  const canSurvey = can(user.role, 'hole.survey') && !locked;
-  const canReview = can(user.role, 'hole.review');
+  const { locked, own, canEdit, canDelete, canSurvey, canReview } = holeRights(user, hole);
   // Crews add photos to the holes they logged; the server says the same.
   const canUpload = can(user.role, 'photo.upload') && !locked && own;
   /** Designers and administrators change any photo; others the ones they added (crews also those on their own holes). */

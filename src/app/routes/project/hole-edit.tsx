@@ -1,5 +1,5 @@
 import { useNavigate, useParams } from 'react-router-dom';
-import { ProblemAlert } from '@/components/ui/alert';
+import { Alert, ProblemAlert } from '@/components/ui/alert';
 import { ButtonLink } from '@/components/ui/button';
 import { Loading } from '@/components/ui/states';
 import { useSignedInUser } from '@/features/auth/api/get-session';
@@ -7,6 +7,7 @@ import { useBores } from '@/features/bores/api/get-bores';
 import { useHole } from '@/features/holes/api/get-hole';
 import { useHoles } from '@/features/holes/api/get-holes';
 import { HoleForm } from '@/features/holes/components/hole-form';
+import { holeRights } from '@/features/holes/utils/rights';
 import { useLines } from '@/features/lines/api/get-lines';
 import { NotFound } from '../not-found';
 import { useWorkspace } from './workspace-context';
@@ -27,7 +28,19 @@ export default function HoleEditPage() {
   let body;
   if (hole.isPending || lines.isPending || bores.isPending || holes.isPending) body = <Loading label="Loading the test hole…" />;
   else if (hole.isError || lines.isError || bores.isError || holes.isError) body = <ProblemAlert error={hole.error ?? lines.error ?? bores.error ?? holes.error} />;
-  else
+  else if (!holeRights(user, hole.data).canEdit) {
+    // Reached by its address: say why before anyone types into a form the server would refuse.
+    const { locked } = holeRights(user, hole.data);
+    body = (
+      <Alert tone="info" title="This hole cannot be edited here">
+        <p>
+          {locked
+            ? 'It has been reviewed and is locked; a design engineer can reopen it with a reason from the hole page.'
+            : 'Field crews edit only the holes they logged; this one was logged by someone else. Ask that crew or a design engineer to change it.'}
+        </p>
+      </Alert>
+    );
+  } else
     body = (
       <HoleForm
         key={hole.data.id}
