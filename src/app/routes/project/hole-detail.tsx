@@ -88,11 +88,18 @@ function HoleBody({ hole }: { hole: HoleDto }) {
         <HoleStatusSteps status={hole.status} />
       </div>
 
-      {saved === 'created' && (
-        <Alert tone="success" title={`Test hole ${hole.number} saved`}>
-          <p>Add photos below: the line exposed with a tape showing depth, the marker, the restored surface.</p>
-        </Alert>
-      )}
+      {saved === 'created' &&
+        (hole.status === 'planned' ? (
+          <Alert tone="caution" title={`Test hole ${hole.number} saved as planned`}>
+            <p>
+              It has no depth to top yet, so it does not verify the line. When the line is exposed, edit the hole and enter the depth: it then counts as dug.
+            </p>
+          </Alert>
+        ) : (
+          <Alert tone="success" title={`Test hole ${hole.number} saved`}>
+            <p>Add photos below: the line exposed with a tape showing depth, the marker, the restored surface.</p>
+          </Alert>
+        ))}
       {saved === 'updated' && <Alert tone="success">Changes saved.</Alert>}
       {locked && (
         <Alert tone="info" title={<span className="inline-flex items-center gap-1.5"><LockIcon className="size-4" /> Reviewed and locked</span>}>
