@@ -94,6 +94,7 @@ export const router = createBrowserRouter([
             loader: (args) => prefetch(args, (id) => [queryClient.prefetchQuery(linesQueryOptions(id))]),
             element: page(() => import('./routes/project/lines')),
           },
+          { path: 'lines/:lineId', element: page(() => import('./routes/project/line-detail')) },
           {
             path: 'bores',
             loader: (args) => prefetch(args, (id) => [queryClient.prefetchQuery(boresQueryOptions(id)), queryClient.prefetchQuery(pitsQueryOptions(id))]),

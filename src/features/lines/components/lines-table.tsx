@@ -1,3 +1,4 @@
+import { Link } from 'react-router-dom';
 import type { LineDto } from '@shared/api';
 import type { LinearUnit, LineStatus } from '@shared/domain';
 import { UNIT_SYMBOLS } from '@shared/units';
@@ -26,10 +27,19 @@ function requirement(line: LineDto, unit: LinearUnit): string {
   return parts.join(' · ');
 }
 
-/** The register of existing lines, read-only. Sizes and depths are in the project unit. */
-export function LinesTable({ lines, unit }: { lines: LineDto[]; unit: LinearUnit }) {
+/** The register of existing lines; each label opens the line's page. Sizes and depths are in the project unit. */
+export function LinesTable({ lines, unit, projectId }: { lines: LineDto[]; unit: LinearUnit; projectId: number }) {
   const columns: Column<LineDto>[] = [
-    { key: 'label', header: 'Label', cell: (l) => l.label, wrap: true },
+    {
+      key: 'label',
+      header: 'Label',
+      cell: (l) => (
+        <Link to={`/projects/${projectId}/lines/${l.id}`} className="font-semibold text-brand-700 underline-offset-2 hover:underline">
+          {l.label}
+        </Link>
+      ),
+      wrap: true,
+    },
     { key: 'kind', header: 'Kind', cell: (l) => <KindSwatch kind={l.kind} /> },
     { key: 'owner', header: 'Owner', cell: (l) => l.owner, wrap: true },
     { key: 'size', header: 'Outside size', cell: (l) => lineSize(l, unit), numeric: true },
