@@ -379,7 +379,7 @@ export interface StakePointDto {
   /** Stable id: `crossing:<boreId>:<lineId>`, `suggested:<boreId>:<lineId>:<reason>`, `pit:<pitId>:<corner>`. */
   key: string;
   kind: 'crossing' | 'suggested_hole' | 'pit_corner';
-  /** A short point name (`X<boreId>-<lineId>`, `SH<boreId>-<lineId>`, `P<pitId>-<corner>`) and a description for the point file. */
+  /** The point's name, made from its key (`stakePointName`: `X<boreId>-<lineId>`, `SH<boreId>-<lineId>`, `SH<boreId>-<lineId>N` at a nearest point, `P<pitId>-<corner>`), and its description; the point file, DXF and zip use both as they are. */
   name: string;
   description: string;
   boreId: number;

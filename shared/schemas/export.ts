@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { CLEARANCE_STATUSES, CONFLICT_STATUSES, LINE_KINDS } from '../domain';
 import { conflictListQuerySchema } from './conflict';
+import type { StakePointKind } from './stakeout';
 
 /** `a,b,c` or repeated parameters → a list (query strings); blanks are dropped. */
 const toList = (v: unknown): unknown =>
@@ -27,11 +28,13 @@ export type CsvIdStyle = (typeof CSV_ID_STYLES)[number];
 export const conflictExportQuerySchema = conflictListQuerySchema.extend({ ids: z.enum(CSV_ID_STYLES).optional() }).strict();
 export type ConflictExportQuery = z.infer<typeof conflictExportQuerySchema>;
 
-/** Which stake-out points a stake-out export holds. */
-export const STAKEOUT_SETS = ['crossings', 'suggested'] as const;
+/** Which stake-out points a stake-out export holds: one set per kind of point on the Stake-out screen. */
+export const STAKEOUT_SETS = ['crossings', 'suggested', 'pits'] as const;
 export type StakeoutSet = (typeof STAKEOUT_SETS)[number];
+/** The kind of point (`STAKE_POINT_KINDS`, whose labels the screen's filter and the files' headers use) each set holds. */
+export const STAKEOUT_SET_KINDS = { crossings: 'crossing', suggested: 'suggested_hole', pits: 'pit_corner' } as const satisfies Record<StakeoutSet, StakePointKind>;
 
-/** `stakeout.csv|dxf?boreId=3&kind=water&set=crossings`: all bores, kinds and both sets by default. */
+/** `stakeout.csv|dxf?boreId=3&kind=water&set=crossings`: all bores, line kinds and sets by default (`kind` narrows the lines; pit corners have none). */
 export const stakeoutExportQuerySchema = z.strictObject({
   boreId: listOf(z.coerce.number().int().positive()).optional(),
   kind: listOf(z.enum(LINE_KINDS)).optional(),

@@ -14,8 +14,8 @@ import DxfParser from 'dxf-parser';
 import type { IPointEntity, IPolylineEntity, ITextEntity } from 'dxf-parser';
 import JSZip from 'jszip';
 import proj4 from 'proj4';
-import type { ExportJobDto, ExportSummaryDto } from '@shared/api';
-import { Bore, Conflict, TestHole, User, UtilityLine } from '@server/entities';
+import type { ExportJobDto, ExportSummaryDto, StakeoutDto } from '@shared/api';
+import { Bore, Conflict, Project, TestHole, User, UtilityLine } from '@server/entities';
 import { recomputeConflicts } from '@server/modules/clearances/clearance.service';
 import { makeFixtures, makeTestApp, type Fixtures, type TestContext } from './helpers';
 
@@ -226,37 +226,142 @@ describe('conflict list as PDF', () => {
 });
 
 describe('stake-out exports', () => {
+  /** The Stake-out screen's list (its API), the source of every name and position in the files. */
+  const stakeList = async () => ((await get(`/api/projects/${f.project.id}/stakeout`)).body as StakeoutDto).points;
+  const readPointFile = (text: string) => {
+    const parsed = Papa.parse<Record<string, string>>(text, { header: true, comments: '#', skipEmptyLines: true });
+    expect(parsed.errors).toEqual([]);
+    return parsed;
+  };
+  /** Each POINT of the DXF with the TEXT label written right after it (dxf-parser keeps file order). */
+  const dxfPoints = (text: string) => {
+    const dxf = new DxfParser().parseSync(text)!;
+    const out: { point: IPointEntity; label: ITextEntity }[] = [];
+    dxf.entities.forEach((e, i) => {
+      if (e.type !== 'POINT') return;
+      const label = dxf.entities[i + 1] as ITextEntity;
+      expect(label.type).toBe('TEXT');
+      out.push({ point: e as IPointEntity, label });
+    });
+    return { dxf, out };
+  };
+
   it('when the point file is read back, then it has exactly point, northing, easting, elevation, description and the hand-worked points', async () => {
     const res = await get(`${base()}/stakeout.csv`);
     expect(res.status).toBe(200);
     expect(headerOf(res.text)).toContain('# Vertical datum: NAVD 88');
-    const parsed = Papa.parse<Record<string, string>>(res.text, { header: true, comments: '#', skipEmptyLines: true });
+    expect(headerOf(res.text)).toContain('# Points: 7; filter: kind of point = Confirmed crossing / Suggested test hole / Pit corner');
+    const parsed = readPointFile(res.text);
     expect(parsed.meta.fields).toEqual(['point', 'northing', 'easting', 'elevation', 'description']);
+    const list = await stakeList();
+    const lineId = (label: string) => list.find((p) => p.lineLabel === label)!.lineId!;
+    const b = f.bore.id;
+    // Names come from the bore, line and pit ids, as on the Stake-out screen, in the screen's order:
+    // crossings up-station (W-1 at 11+00, 007 at 12+00), the fibre's suggested hole, the pit's corners.
+    expect(parsed.data.map((r) => r.point)).toEqual([
+      `X${b}-${f.line.id}`,
+      `X${b}-${lineId('007')}`,
+      `SH${b}-${lineId('C-9')}`,
+      ...[1, 2, 3, 4].map((c) => `P${f.pit.id}-${c}`),
+    ]);
     // W-1 crosses the bore at E 3,000,100, N 13,800,000; TH-1 verifies it (10 ft away) and the top there is held
     // at TH-1's 86.00 (the crossing lies before the first hole along the line: held flat, SPEC §4.4).
-    // Points are numbered along the bore: X1 = W-1 at 11+00, X2 = 007 at 12+00; SH1 = the fibre.
-    expect(parsed.data.map((r) => r.point)).toEqual(['X1', 'X2', 'SH1']);
-    const x = parsed.data.find((r) => r.point === 'X1')!;
-    expect(x.description).toMatch(/^W-1 Potable water top of line over Bore 1 STA 11\+00\.00/);
+    const x = parsed.data[0]!;
+    expect(x.description).toBe('Confirmed crossing W-1 (Potable water) over Bore 1; top of line; TH-1');
     expect(Number(x.northing)).toBeCloseTo(13800000, 3);
     expect(Number(x.easting)).toBeCloseTo(3000100, 3);
     expect(Number(x.elevation)).toBeCloseTo(86, 6);
-    expect(x.description).toContain('TH-1');
-    const x007 = parsed.data.find((r) => r.point === 'X2')!;
-    expect(x007.description).toMatch(/^007 Gas/);
+    const x007 = parsed.data[1]!;
+    expect(x007.description).toMatch(/^Confirmed crossing 007 \(Gas\) over Bore 1; top of line; 007$/);
     expect(Number(x007.elevation)).toBeCloseTo(85.5, 6);
     // The fibre has no hole: its suggested test hole sits on the crossing, elevation = ground 100.00 from the profile.
-    const s = parsed.data.find((r) => r.point === 'SH1')!;
+    const s = parsed.data[2]!;
     expect(Number(s.easting)).toBeCloseTo(3000050, 3);
     expect(Number(s.northing)).toBeCloseTo(13800000, 3);
     expect(Number(s.elevation)).toBeCloseTo(100, 6);
-    expect(s.description).toMatch(/^Suggested test hole C-9/);
+    expect(s.description).toMatch(/^Suggested test hole C-9 \(.+\) at its crossing of Bore 1; ground$/);
+    // The launch pit's corners (helpers.ts footprint) at its bottom, 80.00.
+    expect(parsed.data.slice(3).map((r) => [Number(r.easting), Number(r.northing), Number(r.elevation)])).toEqual([
+      [2999980, 13799990, 80],
+      [3000000, 13799990, 80],
+      [3000000, 13800010, 80],
+      [2999980, 13800010, 80],
+    ]);
+    expect(parsed.data[3]!.description).toBe('Pit corner 1 of 4 launch pit of Bore 1; pit bottom 80.00 US ft');
   });
 
-  it('when only one set is asked for, then only those points come out', async () => {
+  it('when the Stake-out list and the point file and DXF are read back, then they hold the same points under the same names at the same places, and names are unique and short', async () => {
+    // The defect this guards against: the screen named points by line (X1-4 = the sewer) while the file
+    // numbered them (X4 = another line). Compare the API with the files, point for point.
+    const list = await stakeList();
+    expect(list).toHaveLength(7);
+    const names = list.map((p) => p.name);
+    expect(new Set(names).size).toBe(names.length);
+    // Data collectors commonly take point names of 10 to 16 characters (common practice).
+    for (const n of names) expect(n.length).toBeLessThanOrEqual(16);
+
+    const csv = readPointFile((await get(`${base()}/stakeout.csv`)).text).data;
+    // The file rounds coordinates to 4 decimals (round4).
+    expect(csv.map((r) => [r.point, Number(r.northing), Number(r.easting), r.elevation === '' ? null : Number(r.elevation), r.description])).toEqual(
+      list.map((p) => [p.name, Math.round(p.northing * 1e4) / 1e4, Math.round(p.easting * 1e4) / 1e4, p.elevation === null ? null : Math.round(p.elevation * 1e4) / 1e4, p.description]),
+    );
+
+    // dxf-writer writes its entities layer by layer, so the DXF is compared by name.
+    const { out } = dxfPoints(((await getFile(`${base()}/stakeout.dxf`)).body as Buffer).toString('utf8'));
+    const byName = new Map(out.map((e) => [e.label.text.split(' ')[0]!, e.point]));
+    expect(byName.size).toBe(out.length);
+    expect([...byName.keys()].sort()).toEqual([...names].sort());
+    for (const p of list) {
+      const point = byName.get(p.name)!;
+      expect(point.position.x).toBeCloseTo(p.easting, 6);
+      expect(point.position.y).toBeCloseTo(p.northing, 6);
+      expect(point.position.z).toBeCloseTo(p.elevation ?? 0, 6);
+    }
+
+    // …and the zip's copies are the same files.
+    const start = await request(ctx.app).post(`${base()}/bundle`).set('Cookie', ctx.cookie('viewer')).send({ photos: false });
+    const job = await waitForJob(`${base()}/bundle/${(start.body as ExportJobDto).id}`, 'viewer');
+    const zip = await JSZip.loadAsync((await getFile(job.downloadUrl!, 'viewer')).body as Buffer);
+    expect(readPointFile(await zip.file('stakeout-points.csv')!.async('string')).data.map((r) => r.point)).toEqual(names);
+    expect(dxfPoints(await zip.file('stakeout.dxf')!.async('string')).out.map(({ label }) => label.text.split(' ')[0]).sort()).toEqual([...names].sort());
+  });
+
+  it('when a line is added, then no other point changes its name (names come from ids, not list order)', async () => {
+    const before = await stakeList();
+    // A sewer crossing at E 3,000,020 (station 10+20), ahead of every other crossing along the bore.
+    const em = ctx.orm.em.fork();
+    const project = await em.findOneOrFail(Project, f.project.id);
+    const sewer = new UtilityLine(project, 'S-1', 'Test sewer district', 'sewer', [
+      [3000020, 13799900],
+      [3000020, 13800100],
+    ]);
+    sewer.diameter = 1.25;
+    sewer.recordDepth = 8;
+    em.persist(sewer);
+    await em.flush();
+    try {
+      const after = await stakeList();
+      expect(after).toHaveLength(before.length + 1);
+      const byKey = new Map(after.map((p) => [p.key, p.name]));
+      for (const p of before) expect(byKey.get(p.key)).toBe(p.name);
+      expect(after.find((p) => p.lineLabel === 'S-1')!.name).toBe(`SH${f.bore.id}-${sewer.id}`);
+    } finally {
+      await em.removeAndFlush(sewer);
+    }
+  });
+
+  it('when only one kind of point is asked for, then only those points come out and the header says so in the screen’s words', async () => {
     const res = await get(`${base()}/stakeout.csv?set=suggested`);
-    const parsed = Papa.parse<Record<string, string>>(res.text, { header: true, comments: '#', skipEmptyLines: true });
-    expect(parsed.data.map((r) => r.point)).toEqual(['SH1']);
+    const list = await stakeList();
+    expect(readPointFile(res.text).data.map((r) => r.point)).toEqual(list.filter((p) => p.kind === 'suggested_hole').map((p) => p.name));
+    expect(headerOf(res.text)).toContain('# Points: 1; filter: kind of point = Suggested test hole');
+    const pits = await get(`${base()}/stakeout.csv?set=pits&boreId=${f.bore.id}`);
+    expect(readPointFile(pits.text).data.map((r) => r.point)).toEqual([1, 2, 3, 4].map((c) => `P${f.pit.id}-${c}`));
+    expect(headerOf(pits.text)).toContain('# Points: 4; filter: kind of point = Pit corner; bore = Bore 1');
+    // A line kind narrows the lines' points; pit corners are on no line and stay (the header says so).
+    const gas = await get(`${base()}/stakeout.csv?kind=gas`);
+    expect(readPointFile(gas.text).data.map((r) => r.point)).toEqual(list.filter((p) => p.lineKind === 'gas' || p.kind === 'pit_corner').map((p) => p.name));
+    expect(headerOf(gas.text).find((l) => l.startsWith('# Points: 5;'))).toContain('kind = Gas; pit corners are on no line');
   });
 
   it('when dxf-parser reads the DXF, then layers go by line kind and Z values equal the elevations', async () => {
@@ -265,21 +370,20 @@ describe('stake-out exports', () => {
     const text = (res.body as Buffer).toString('utf8');
     expect(text).toContain('999\nCRS: EPSG:2278');
     expect(text).toContain('999\nVertical datum: NAVD 88');
-    const dxf = new DxfParser().parseSync(text)!;
+    const { dxf, out } = dxfPoints(text);
     const layers = Object.keys(dxf.tables.layer.layers);
-    for (const l of ['UTIL-WATER', 'UTIL-WATER-PLAN', 'UTIL-GAS', 'UTIL-COMMUNICATIONS-SUGGESTED', 'BORE-CENTRELINE', 'INFO']) expect(layers).toContain(l);
+    for (const l of ['UTIL-WATER', 'UTIL-WATER-PLAN', 'UTIL-GAS', 'UTIL-COMMUNICATIONS-SUGGESTED', 'BORE-CENTRELINE', 'PIT-CORNERS', 'INFO']) expect(layers).toContain(l);
 
-    const points = dxf.entities.filter((e) => e.type === 'POINT') as IPointEntity[];
-    const x = points.find((p) => p.layer === 'UTIL-WATER')!;
-    expect(x.position.x).toBeCloseTo(3000100, 3);
-    expect(x.position.y).toBeCloseTo(13800000, 3);
-    expect(x.position.z).toBeCloseTo(86, 6);
-    expect(points.find((p) => p.layer === 'UTIL-GAS')!.position.z).toBeCloseTo(85.5, 6);
-    expect(points.find((p) => p.layer === 'UTIL-COMMUNICATIONS-SUGGESTED')!.position.z).toBeCloseTo(100, 6);
-    const label = (dxf.entities.filter((e) => e.type === 'TEXT') as ITextEntity[]).find((t) => t.text.startsWith('X1 '))!;
-    expect(label.text).toBe('X1 TOP 86.00');
-    expect(label.layer).toBe('UTIL-WATER');
-    expect(label.startPoint.z).toBeCloseTo(86, 6);
+    const x = out.find(({ point }) => point.layer === 'UTIL-WATER')!;
+    expect(x.point.position.x).toBeCloseTo(3000100, 3);
+    expect(x.point.position.y).toBeCloseTo(13800000, 3);
+    expect(x.point.position.z).toBeCloseTo(86, 6);
+    expect(x.label.text).toBe(`X${f.bore.id}-${f.line.id} TOP 86.00`);
+    expect(x.label.layer).toBe('UTIL-WATER');
+    expect(x.label.startPoint.z).toBeCloseTo(86, 6);
+    expect(out.find(({ point }) => point.layer === 'UTIL-GAS')!.point.position.z).toBeCloseTo(85.5, 6);
+    expect(out.find(({ point }) => point.layer === 'UTIL-COMMUNICATIONS-SUGGESTED')!.point.position.z).toBeCloseTo(100, 6);
+    expect(out.filter(({ point }) => point.layer === 'PIT-CORNERS').map(({ label }) => label.text)).toEqual([1, 2, 3, 4].map((c) => `P${f.pit.id}-${c} PIT 80.00`));
 
     // The top of W-1 as a 3-D polyline between its holes: TH-1 (86.00) to TH-2 (87.00).
     const top = (dxf.entities.filter((e) => e.type === 'POLYLINE') as IPolylineEntity[]).find((p) => p.layer === 'UTIL-WATER')!;

@@ -3,6 +3,7 @@ import request from 'supertest';
 import type { ClearancesDto, StakeMarkDto, StakeoutDto, StakePointDto } from '@shared/api';
 import { Bore, TestHole, UtilityLine } from '@server/entities';
 import { recomputeConflicts } from '@server/modules/clearances/clearance.service';
+import { stakePointName } from '@server/modules/stakeout/stakeout.service';
 import { makeFixtures, makeTestApp, type Fixtures, type TestContext } from './helpers';
 
 let ctx: TestContext;
@@ -110,11 +111,30 @@ describe('the stake-out list of the fixture, worked by hand', () => {
     expect(list.points).toHaveLength(1 + 1 + 4);
   });
 
+  it('names every point from its key, as the point file and DXF do: X<bore>-<line>, SH<bore>-<line>, P<pit>-<corner>, all different', () => {
+    const gas = list.points.find((x) => x.lineLabel === 'G-1')!.lineId!;
+    expect(list.points.map((p) => p.name)).toEqual([`X${f.bore.id}-${f.line.id}`, `SH${f.bore.id}-${gas}`, ...[1, 2, 3, 4].map((c) => `P${f.pit.id}-${c}`)]);
+    expect(list.points.map((p) => p.name)).toEqual(list.points.map((p) => stakePointName(p.key)));
+    expect(point(`pit:${f.pit.id}:1`).description).toBe('Pit corner 1 of 4 launch pit of Bore 1; pit bottom 80.00 US ft');
+  });
+
   it('when filtered by another bore, then the list is empty; a bad bore id names the parameter', async () => {
     expect(((await get(`/api/projects/${f.project.id}/stakeout?boreId=999999`)).body as StakeoutDto).points).toEqual([]);
     const bad = await get(`/api/projects/${f.project.id}/stakeout?boreId=abc`);
     expect(bad.status).toBe(400);
     expect(bad.body.errors[0].path).toBe('query.boreId');
+  });
+});
+
+describe('stakePointName', () => {
+  it('gives each form of key its own name, a later crossing or nearest-point hole its own suffix', () => {
+    const keys = ['crossing:1:2', 'crossing:1:2:2', 'crossing:12:3', 'suggested:1:2:crossing', 'suggested:1:2:crossing:2', 'suggested:1:2:closest_point', 'suggested:1:2:closest_point:2', 'pit:1:2', 'pit:12:3'];
+    const names = keys.map(stakePointName);
+    expect(names).toEqual(['X1-2', 'X1-2-2', 'X12-3', 'SH1-2', 'SH1-2-2', 'SH1-2N', 'SH1-2N-2', 'P1-2', 'P12-3']);
+    expect(new Set(names).size).toBe(keys.length);
+    // Five-digit ids still fit a 16-character point name (common practice for data collectors).
+    expect(stakePointName('suggested:99999:99999:closest_point:2')).toHaveLength(16);
+    expect(() => stakePointName('hole:1')).toThrow();
   });
 });
 

@@ -1,5 +1,5 @@
 import Drawing from 'dxf-writer';
-import { LINE_KIND_LABELS, LINE_KINDS, type LineKind, type Side } from '@shared/domain';
+import { LINE_KINDS, type LineKind } from '@shared/domain';
 import {
   buildLineElevationModel,
   lineSize,
@@ -10,97 +10,71 @@ import {
   profileElevation,
   topFromHoles,
 } from '@shared/geometry';
-import type { StakeoutSet } from '@shared/schemas/export';
-import { stakePoints } from '../stakeout/stakeout.service';
+import { STAKEOUT_SET_KINDS, STAKEOUT_SETS, type StakeoutSet } from '@shared/schemas/export';
+import { STAKE_POINT_KIND_LABELS, type StakePointKind } from '@shared/schemas/stakeout';
+import { stakePoints, type StakePoint } from '../stakeout/stakeout.service';
 import { csvDocument, type CsvColumn } from './csv';
 import { describeFilter, filterNames, type ProjectExportData } from './export-data';
-import { decimalsOf, FIELD_CAUTIONS, headerBlock, isoSeconds, round4, stationText } from './export-header';
+import { decimalsOf, FIELD_CAUTIONS, headerBlock, isoSeconds, round4 } from './export-header';
 
 /**
- * Stake-out exports: the confirmed line positions over each crossing (a dug hole verifies the
- * crossing, the elevation is the top of line from the holes) and the suggested test holes (the
- * crossing or closest point of each unverified line; the elevation is the ground from the bore's
- * ground profile where it has one), as a point file and as DXF.
+ * Stake-out exports: the Stake-out screen's points — confirmed line positions over each crossing
+ * (elevation: top of line from the test holes), suggested test holes (elevation: ground from the
+ * bore's ground profile where it has one) and pit corners (elevation: pit bottom) — as a point
+ * file and as DXF, under the screen's names and descriptions.
  */
 
-export interface StakeoutPoint {
-  name: string;
-  set: StakeoutSet;
-  boreId: number;
-  boreName: string;
-  lineId: number;
-  lineLabel: string;
-  lineKind: LineKind;
-  easting: number;
-  northing: number;
-  elevation: number | null;
-  /** What the elevation is. */
-  elevationRef: 'top of line' | 'ground' | null;
-  station: number;
-  offset: number;
-  side: Side;
-  holes: string[];
-  description: string;
-}
+/** A point of a stake-out file: the stake-out list's point as it is, with the set it belongs to. */
+export type StakeoutPoint = StakePoint & { set: StakeoutSet };
 
 export interface StakeoutFilter {
   boreId?: number[];
+  /** Line kinds: narrows the crossings and suggested holes; pit corners are on no line and stay. */
   kind?: LineKind[];
   set?: StakeoutSet[];
 }
 
+const SET_OF_KIND = Object.fromEntries(STAKEOUT_SETS.map((s) => [STAKEOUT_SET_KINDS[s], s])) as Record<StakePointKind, StakeoutSet>;
+
 /**
- * The stake-out points of the export-time report, taken from the stake-out list's own builder
- * (`stakePoints`, the same points and keys as the Stake-out screen): the confirmed crossings that
- * have a top-of-line elevation and the suggested test holes (pit corners stay on the screen).
- * Points are numbered (`X1`, `X2`… for confirmed crossings, `SH1`… for suggested holes, in bore
- * and station order) because data collectors take short names; the line's label goes in the
- * description.
+ * The stake-out points of the export-time report: exactly the stake-out list's points
+ * (`stakePoints`, the Stake-out screen's builder), with its names (`X<bore>-<line>`,
+ * `SH<bore>-<line>`, `P<pit>-<corner>`, see `stakePointName`), descriptions and order, narrowed by
+ * the filter. Nothing is renamed or renumbered here: the name a surveyor reads on the screen is
+ * the name in the file.
  */
 export function stakeoutPoints(data: ProjectExportData, filter: StakeoutFilter = {}): StakeoutPoint[] {
-  const sets = filter.set?.length ? filter.set : (['crossings', 'suggested'] as StakeoutSet[]);
-  const { frame } = data;
+  const sets: readonly StakeoutSet[] = filter.set?.length ? filter.set : STAKEOUT_SETS;
   const points: StakeoutPoint[] = [];
-  for (const p of stakePoints(data.report, data.input.bores, frame.unit)) {
-    if (p.lineId == null || p.lineKind == null || p.lineLabel == null) continue; // pit corners
+  for (const p of stakePoints(data.report, data.input.bores, data.frame.unit)) {
+    const set = SET_OF_KIND[p.kind];
+    if (!sets.includes(set)) continue;
     if (filter.boreId?.length && !filter.boreId.includes(p.boreId)) continue;
-    if (filter.kind?.length && !filter.kind.includes(p.lineKind)) continue;
-    const line = `${p.lineLabel} ${LINE_KIND_LABELS[p.lineKind]}`;
-    const at = `${p.boreName} STA ${stationText(p.station, frame)}`;
-    const common = { name: '', boreId: p.boreId, boreName: p.boreName, lineId: p.lineId, lineLabel: p.lineLabel, lineKind: p.lineKind, easting: p.easting, northing: p.northing, elevation: p.elevation, station: p.station, offset: p.offset, side: p.side, holes: p.holes };
-    if (p.kind === 'crossing' && p.elevation != null && sets.includes('crossings')) {
-      points.push({ ...common, set: 'crossings', elevationRef: 'top of line', description: `${line} top of line over ${at} (confirmed by ${p.holes.join(' ')})` });
-    } else if (p.kind === 'suggested_hole' && sets.includes('suggested')) {
-      const where = p.reason === 'crossing' ? 'crossing' : 'closest point';
-      const off = p.offset ? ` ${p.offset.toFixed(decimalsOf(frame.unit))} ${p.side}` : '';
-      const z = p.elevation == null ? 'no elevation (no ground profile at this station: take the ground on site)' : 'elevation = ground from the bore ground profile';
-      points.push({ ...common, set: 'suggested', elevationRef: p.elevation == null ? null : 'ground', description: `Suggested test hole ${line} at ${where} ${at}${off}; ${z}` });
-    }
+    if (filter.kind?.length && p.lineKind != null && !filter.kind.includes(p.lineKind)) continue;
+    points.push({ ...p, set });
   }
-  // Number in station order along each bore, crossings first.
-  const numbers = { X: 0, SH: 0 };
-  points.sort((a, b) => a.boreName.localeCompare(b.boreName) || a.boreId - b.boreId || (a.set === b.set ? 0 : a.set === 'crossings' ? -1 : 1) || a.station - b.station);
-  for (const p of points) p.name = p.set === 'crossings' ? `X${++numbers.X}` : `SH${++numbers.SH}`;
   return points;
 }
 
-function setsText(filter: StakeoutFilter): string {
-  const sets = filter.set?.length ? filter.set : ['crossings', 'suggested'];
-  return sets.map((s) => (s === 'crossings' ? 'confirmed crossings' : 'suggested test holes')).join(' and ');
-}
-
+/** The filter in the Stake-out screen's words (its kind-of-point labels) and the conflict lists' (bore, line kind). */
 function filterText(data: ProjectExportData, filter: StakeoutFilter): string {
-  // Bores and kinds in the conflict lists' words.
-  const narrowed = filter.boreId?.length || filter.kind?.length;
-  const rest = narrowed ? [describeFilter({ boreId: filter.boreId, kind: filter.kind }, filterNames([], data.bores))] : [];
-  return [`points = ${setsText(filter)}`, ...rest].join('; ');
+  const sets: readonly StakeoutSet[] = filter.set?.length ? STAKEOUT_SETS.filter((s) => filter.set!.includes(s)) : STAKEOUT_SETS;
+  const parts = [`kind of point = ${sets.map((s) => STAKE_POINT_KIND_LABELS[STAKEOUT_SET_KINDS[s]]).join(' / ')}`];
+  if (filter.boreId?.length || filter.kind?.length) parts.push(describeFilter({ boreId: filter.boreId, kind: filter.kind }, filterNames([], data.bores)));
+  if (filter.kind?.length && sets.includes('pits')) parts.push('pit corners are on no line: the line kind does not narrow them');
+  return parts.join('; ');
 }
 
 /** The stake-out header block (with the digging cautions for the field). */
 export function stakeoutHeader(data: ProjectExportData, points: StakeoutPoint[], filter: StakeoutFilter): [string, string][] {
+  const u = data.frame.unitSymbol;
   return headerBlock(data.frame, 'stake-out points', [
-    ['Points', `${points.length}; ${filterText(data, filter)}`],
-    ['Columns', `point; northing; easting (${data.frame.unitSymbol}); elevation (${data.frame.unitSymbol} ${data.frame.verticalDatum}; top of line for confirmed crossings; ground for suggested test holes); description`],
+    ['Points', `${points.length}; filter: ${filterText(data, filter)}`],
+    ['Point names', 'as on the Stake-out screen: X<bore>-<line> confirmed crossing; SH<bore>-<line> suggested test hole (N: nearest point, not a crossing); P<pit>-<corner> pit corner'],
+    [
+      'Columns',
+      `point; northing; easting (${u}); elevation (${u} ${data.frame.verticalDatum}; top of line for confirmed crossings; ground for suggested test holes; pit bottom for pit corners; blank where there is none); description`,
+    ],
     ...FIELD_CAUTIONS.slice(0, 2).map((c): [string, string] => ['Field caution', c]),
   ]);
 }
@@ -139,6 +113,8 @@ export function kindLayer(kind: LineKind, suffix: '' | '-PLAN' | '-SUGGESTED' = 
   return `UTIL-${kind.toUpperCase()}${suffix}`;
 }
 export const BORE_LAYER = 'BORE-CENTRELINE';
+/** Pit corners: on no line, so on a layer of their own. */
+export const PIT_LAYER = 'PIT-CORNERS';
 export const INFO_LAYER = 'INFO';
 
 /** `$INSUNITS`: 6 metres, 2 feet, 21 US survey feet (AutoCAD 2017 and later; from memory). */
@@ -267,6 +243,7 @@ export function stakeoutDxf(data: ProjectExportData, points: StakeoutPoint[], fi
     drawing.addLayer(kindLayer(k, '-SUGGESTED'), KIND_ACI[k], 'CONTINUOUS');
   }
   drawing.addLayer(BORE_LAYER, 7, 'CONTINUOUS');
+  if (points.some((p) => p.lineKind == null)) drawing.addLayer(PIT_LAYER, 7, 'CONTINUOUS');
   drawing.addLayer(INFO_LAYER, 7, 'CONTINUOUS');
 
   const bores = data.bores.filter((b) => !filter.boreId?.length || filter.boreId.includes(b.id));
@@ -290,13 +267,15 @@ export function stakeoutDxf(data: ProjectExportData, points: StakeoutPoint[], fi
     }
   }
 
+  // Every point of the file, under its stake-out name: a POINT at its true elevation and, right
+  // after it, its TEXT label (`<name> TOP|GND|PIT <elevation>`).
+  const ref = { line_top: 'TOP', ground: 'GND', pit_bottom: 'PIT' } as const;
   for (const p of points) {
-    if (!kinds.includes(p.lineKind)) continue;
-    drawing.setActiveLayer(kindLayer(p.lineKind, p.set === 'crossings' ? '' : '-SUGGESTED'));
+    drawing.setActiveLayer(p.lineKind == null ? PIT_LAYER : kindLayer(p.lineKind, p.kind === 'suggested_hole' ? '-SUGGESTED' : ''));
     const z = p.elevation ?? 0;
     drawing.drawPoint(p.easting, p.northing);
     setZ(drawing, z, [30]);
-    const label = p.elevation == null ? `${p.name} (no elevation)` : `${p.name} ${p.elevationRef === 'ground' ? 'GND' : 'TOP'} ${p.elevation.toFixed(decimalsOf(frame.unit))}`;
+    const label = p.elevation == null ? `${p.name} (no elevation)` : `${p.name} ${ref[p.elevationRef]} ${p.elevation.toFixed(decimalsOf(frame.unit))}`;
     drawing.drawText(p.easting + textHeight * 0.5, p.northing + textHeight * 0.5, textHeight, 0, dxfText(label));
     setZ(drawing, z, [30, 31]);
   }

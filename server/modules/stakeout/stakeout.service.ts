@@ -48,14 +48,41 @@ function groundAt(bore: StakeBore, station: number, beyond: 'start' | 'end' | nu
 }
 
 /**
+ * The point name, made from the point's stable key and nothing else (not from list order), so a
+ * point keeps its name while its bore, line or pit keeps its record, and the Stake-out screen,
+ * the point file, the DXF and the zip all say the same name:
+ * - `crossing:<boreId>:<lineId>[:<n>]` → `X<boreId>-<lineId>[-<n>]` (confirmed crossing);
+ * - `suggested:<boreId>:<lineId>:crossing[:<k>]` → `SH<boreId>-<lineId>[-<k>]` (suggested test hole at
+ *   the crossing); `…:closest_point[:<k>]` → `SH<boreId>-<lineId>N[-<k>]` (at the nearest point);
+ * - `pit:<pitId>:<corner>` → `P<pitId>-<corner>`.
+ * Distinct keys give distinct names (the letters and hyphens tell the forms apart). With ids up to
+ * five digits a name is at most 16 characters, what data collectors commonly take for a point name
+ * (common practice; many take 10 to 16).
+ */
+export function stakePointName(key: string): string {
+  const [form, a, b, c, d] = key.split(':');
+  if (form === 'crossing' && a && b) return `X${a}-${b}${c ? `-${c}` : ''}`;
+  if (form === 'suggested' && a && b && (c === 'crossing' || c === 'closest_point')) return `SH${a}-${b}${c === 'closest_point' ? 'N' : ''}${d ? `-${d}` : ''}`;
+  if (form === 'pit' && a && b) return `P${a}-${b}`;
+  throw new Error(`Not a stake point key: ${key}`);
+}
+
+/** What the elevation is, in the words of the descriptions (and why there is none). */
+function elevationWords(ref: StakePoint['elevationRef'], elevation: number | null): string {
+  if (elevation === null) return ref === 'ground' ? 'no elevation: take the ground on site' : 'no elevation';
+  return { line_top: 'top of line', ground: 'ground', pit_bottom: 'pit bottom' }[ref];
+}
+
+/**
  * The points a survey crew stakes (SPEC §5), from a clearance report:
  * - confirmed line positions over each crossing, where a dug hole verifies the crossing
  *   (elevation: top of line at the crossing);
  * - suggested test holes for lines not yet verified (elevation: ground from the bore's ground
  *   profile at the station; none without a profile);
  * - the corners of every pit footprint (elevation: pit bottom).
- * Point names are short for lath and point files: `X<boreId>-<lineId>`, `SH<boreId>-<lineId>`,
- * `P<pitId>-<corner>`. Keys are stable while the geometry keeps its records: `crossing:<boreId>:<lineId>` (with
+ * Each point's name (`stakePointName`, from its key) and description (what it is, which line of
+ * which kind, which bore, what the elevation is; no commas of its own, for point files) are made here and
+ * only here: the Stake-out screen and every export use them as they are. Keys are stable while the geometry keeps its records: `crossing:<boreId>:<lineId>` (with
  * `:<n>` for a line's second and later crossings), `suggested:<boreId>:<lineId>:<reason>`
  * (with `:<n>` likewise), `pit:<pitId>:<corner>`.
  */
@@ -87,8 +114,8 @@ export function stakePoints(report: ClearanceReport, bores: readonly StakeBore[]
         points.push({
           key: `crossing:${br.boreId}:${line.lineId}${suffix}`,
           kind: 'crossing',
-          name: `X${br.boreId}-${line.lineId}${n > 1 ? `-${n}` : ''}`,
-          description: `${line.label} (${LINE_KIND_LABELS[line.kind]}): top of line over ${br.name}${holes.length ? `, verified by ${holes.join(', ')}` : ''}`,
+          name: '',
+          description: `Confirmed crossing ${line.label} (${LINE_KIND_LABELS[line.kind]}) over ${br.name}; ${elevationWords('line_top', p.lineTop)}${holes.length ? `; ${holes.join(' ')}` : ''}`,
           ...onLine(br, line),
           easting: p.easting,
           northing: p.northing,
@@ -112,8 +139,8 @@ export function stakePoints(report: ClearanceReport, bores: readonly StakeBore[]
         points.push({
           key: `suggested:${br.boreId}:${line.lineId}:${s.reason}${k > 1 ? `:${k}` : ''}`,
           kind: 'suggested_hole',
-          name: `SH${br.boreId}-${line.lineId}${k > 1 ? `-${k}` : ''}`,
-          description: `Suggested test hole on ${line.label} (${LINE_KIND_LABELS[line.kind]}) ${s.reason === 'crossing' ? 'where it crosses' : 'where it comes closest to'} ${br.name}`,
+          name: '',
+          description: `Suggested test hole ${line.label} (${LINE_KIND_LABELS[line.kind]}) ${s.reason === 'crossing' ? 'at its crossing of' : 'nearest'} ${br.name}; ${elevationWords('ground', ground.elevation)}`,
           ...onLine(br, line),
           easting: s.easting,
           northing: s.northing,
@@ -136,8 +163,8 @@ export function stakePoints(report: ClearanceReport, bores: readonly StakeBore[]
         points.push({
           key: `pit:${pit.id}:${corner}`,
           kind: 'pit_corner',
-          name: `P${pit.id}-${corner}`,
-          description: `${pit.kind === 'launch' ? 'Launch' : 'Receiving'} pit of ${br.name}, corner ${corner} of ${pit.footprint.length}; bottom ${pit.bottomElevation.toFixed(unit === 'm' ? 3 : 2)} ${u}`,
+          name: '',
+          description: `Pit corner ${corner} of ${pit.footprint.length} ${pit.kind === 'launch' ? 'launch' : 'receiving'} pit of ${br.name}; pit bottom ${pit.bottomElevation.toFixed(unit === 'm' ? 3 : 2)} ${u}`,
           boreId: br.boreId,
           boreName: br.name,
           lineId: null,
@@ -160,6 +187,7 @@ export function stakePoints(report: ClearanceReport, bores: readonly StakeBore[]
       });
     }
   }
+  for (const p of points) p.name = stakePointName(p.key);
   const order = { crossing: 0, suggested_hole: 1, pit_corner: 2 } as const;
   // By bore, then crossings and suggested holes up-station, then each pit's corners in footprint order.
   const along = (p: StakePoint) => (p.kind === 'pit_corner' ? 0 : p.station);

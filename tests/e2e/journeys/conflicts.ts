@@ -10,6 +10,7 @@
  * address bar with the same parameters as the export endpoints).
  */
 import { join } from 'node:path';
+import Papa from 'papaparse';
 import type { Page } from 'playwright-core';
 import { DEMO_SCENARIOS } from '../../../seeds/demo';
 import { check, demoUser, signIn, signOut, SIGNED_OUT_PROBE, type Journey } from './support';
@@ -122,6 +123,36 @@ export const CONFLICT_JOURNEYS: Journey[] = [
       const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
       check(overflow <= 1, `the stake-out page scrolls sideways on a phone by ${overflow}px`);
       await page.screenshot({ path: join(shots, 'stakeout-surveyor-phone.png'), fullPage: true });
+
+      // The names on the screen are the names in the point file the surveyor loads into the data
+      // collector, for the same filter (bore; kind of point), read back with papaparse.
+      const projectId = /\/projects\/(\d+)\//.exec(page.url())?.[1];
+      check(projectId !== undefined, `no project id in ${page.url()}`);
+      const boreId = new URL(page.url()).searchParams.get('bore');
+      const screenNames = async () =>
+        (await page.getByRole('list', { name: 'Points to stake' }).getByRole('listitem').evaluateAll((items) => items.map((li) => li.getAttribute('aria-label')))).map((l) =>
+          String(l).replace(/^Point /, ''),
+        );
+      const fileNames = async (query: string) => {
+        const res = await page.request.get(`${baseUrl}/api/projects/${projectId}/exports/stakeout.csv?${query}`);
+        check(res.ok(), `stake-out point file: HTTP ${res.status()}`);
+        return Papa.parse<Record<string, string>>(await res.text(), { header: true, comments: '#', skipEmptyLines: true }).data.map((r) => r.point);
+      };
+      const crossings = await screenNames();
+      check(JSON.stringify(crossings) === JSON.stringify(await fileNames(`boreId=${boreId}&set=crossings`)), `screen ${crossings.join(' ')} ≠ point file`);
+      await page.getByRole('button', { name: /^All/ }).click();
+      await page.getByRole('list', { name: 'Points to stake' }).getByRole('listitem').nth(crossings.length).waitFor({ timeout: 10_000 });
+      const all = await screenNames();
+      check(all.some((n) => n.startsWith('P')), `no pit corners on the screen: ${all.join(' ')}`);
+      check(JSON.stringify(all) === JSON.stringify(await fileNames(`boreId=${boreId}`)), `screen ${all.join(' ')} ≠ point file`);
+
+      // On a desktop the cards sit two abreast: a coordinate stays on one line ("US ft" does not wrap).
+      await page.setViewportSize({ width: 1280, height: 900 });
+      const wrapped = await page.getByRole('list', { name: 'Points to stake' }).locator('dd').evaluateAll((dds) =>
+        dds.filter((dd) => !dd.querySelector('span') && dd.getClientRects()[0]!.height > parseFloat(getComputedStyle(dd).lineHeight) * 1.5).map((dd) => dd.textContent),
+      );
+      check(wrapped.length === 0, `values wrap on a desktop card: ${wrapped.join(' | ')}`);
+      await page.screenshot({ path: join(shots, 'stakeout-surveyor-desktop.png'), fullPage: true });
     },
   },
 ];

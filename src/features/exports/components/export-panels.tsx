@@ -1,7 +1,8 @@
 import { useState, type ReactNode } from 'react';
 import type { BoreDto, ExportSummaryDto } from '@shared/api';
 import { LINE_KIND_LABELS, type LineKind } from '@shared/domain';
-import type { ConflictFilterBody, GeojsonLayer, StakeoutSet } from '@shared/schemas/export';
+import { STAKEOUT_SET_KINDS, STAKEOUT_SETS, type ConflictFilterBody, type GeojsonLayer, type StakeoutSet } from '@shared/schemas/export';
+import { STAKE_POINT_KIND_LABELS } from '@shared/schemas/stakeout';
 import { Alert, ProblemAlert } from '@/components/ui/alert';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { CheckboxField, SelectField } from '@/components/ui/field';
@@ -57,14 +58,13 @@ export function ConflictListExport({ projectId, query, rowsText }: { projectId: 
   );
 }
 
-const SET_LABELS: Record<StakeoutSet, string> = { crossings: 'Confirmed line positions over crossings', suggested: 'Suggested test holes' };
 
 /** The stake-out points as a point file and as DXF, for one bore or all. */
 export function StakeoutExport({ projectId, bores, summary, unitText }: { projectId: number; bores: BoreDto[]; summary: ExportSummaryDto; unitText: string }) {
   const [boreId, setBoreId] = useState('');
-  const [sets, setSets] = useState<StakeoutSet[]>(['crossings', 'suggested']);
+  const [sets, setSets] = useState<StakeoutSet[]>([...STAKEOUT_SETS]);
   const toggle = (s: StakeoutSet, on: boolean) => setSets((all) => (on ? [...all, s] : all.filter((x) => x !== s)));
-  const query = { boreId: boreId || undefined, set: sets.length === 2 ? undefined : sets };
+  const query = { boreId: boreId || undefined, set: sets.length === STAKEOUT_SETS.length ? undefined : sets };
   const none = sets.length === 0;
   return (
     <Panel title="Stake-out list" headingLevel={3}>
@@ -83,9 +83,9 @@ export function StakeoutExport({ projectId, bores, summary, unitText }: { projec
             ))}
           </SelectField>
           <fieldset className="space-y-1">
-            <legend className="text-sm font-medium text-ink-800">Points</legend>
-            {(['crossings', 'suggested'] as StakeoutSet[]).map((s) => (
-              <CheckboxField key={s} label={SET_LABELS[s]} checked={sets.includes(s)} onChange={(e) => toggle(s, e.target.checked)} />
+            <legend className="text-sm font-medium text-ink-800">Kind of point</legend>
+            {STAKEOUT_SETS.map((s) => (
+              <CheckboxField key={s} label={STAKE_POINT_KIND_LABELS[STAKEOUT_SET_KINDS[s]]} checked={sets.includes(s)} onChange={(e) => toggle(s, e.target.checked)} />
             ))}
           </fieldset>
         </div>
@@ -100,7 +100,7 @@ export function StakeoutExport({ projectId, bores, summary, unitText }: { projec
           </div>
         )}
         <p className="text-xs text-ink-500">
-          Point file columns: point, northing, easting, elevation, description, under a header block of lines starting with #. The DXF has a layer per line
+          Point names and descriptions are the Stake-out screen’s (X… confirmed crossing, SH… suggested test hole, P… pit corner). Point file columns: point, northing, easting, elevation, description, under a header block of lines starting with #. The DXF has a layer per line
           kind (UTIL-WATER, UTIL-GAS…) with true elevations as Z, the lines’ top where test holes give it as 3-D polylines, and the bore’s casing centreline.
         </p>
       </div>

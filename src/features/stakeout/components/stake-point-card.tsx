@@ -79,7 +79,7 @@ export function StakePointCard({ point, frame, canStake }: { point: StakePointDt
   const unmark = useUnmarkStaked(frame.projectId);
   const moved = point.movedSinceStaked != null && point.movedSinceStaked > (frame.unit === 'm' ? 0.005 : 0.01);
   return (
-    <li className={cn('rounded-lg border bg-white p-3', point.mark ? (moved ? 'border-caution-300' : 'border-ok-100') : 'border-ink-200')} aria-label={`Point ${point.name}`}>
+    <li className={cn('@container rounded-lg border bg-white p-3', point.mark ? (moved ? 'border-caution-300' : 'border-ok-100') : 'border-ink-200')} aria-label={`Point ${point.name}`}>
       <div className="flex flex-wrap items-start justify-between gap-2">
         <div className="min-w-0">
           <p className="font-semibold text-ink-900">{point.name}</p>
@@ -92,7 +92,7 @@ export function StakePointCard({ point, frame, canStake }: { point: StakePointDt
         </div>
         <Badge className={KIND_TONES[point.kind]}>{STAKE_POINT_KIND_LABELS[point.kind]}</Badge>
       </div>
-      <dl className="mt-2 grid grid-cols-2 gap-x-3 gap-y-1 text-sm sm:grid-cols-4">
+      <dl className="mt-2 grid grid-cols-2 gap-x-3 gap-y-1 text-sm @3xl:grid-cols-4">
         <div>
           <dt className="text-xs text-ink-500">Northing</dt>
           <dd className="tabular">{formatCoordinate(point.northing, frame.unit)}</dd>
