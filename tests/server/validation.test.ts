@@ -106,6 +106,10 @@ const cases: { name: string; url: () => string; method: 'post' | 'patch' | 'put'
     paths: ['gpsAccuracy'],
   },
   { name: 'a project with an unknown unit', url: () => '/api/projects', method: 'post', body: () => ({ name: 'X', client: 'Y', crsCode: 'EPSG:2278', crsProj4: '+proj=longlat', unit: 'furlong', verticalDatum: 'NAVD 88', stationStyle: '100' }), paths: ['unit'] },
+  // EPSG:2278 (Texas South Central) is in US survey feet (EPSG registry; the catalogue's entry).
+  { name: 'a project in metres on a US-survey-foot CRS', url: () => '/api/projects', method: 'post', body: () => ({ name: 'X', client: 'Y', crsCode: 'EPSG:2278', crsProj4: '+proj=lcc +lat_0=27.8333333333333 +lon_0=-99 +lat_1=30.2833333333333 +lat_2=28.3833333333333 +x_0=600000 +y_0=4000000 +ellps=GRS80 +units=us-ft +no_defs', unit: 'm', verticalDatum: 'NAVD 88', stationStyle: '1000' }), paths: ['unit'] },
+  // EPSG:26914 (NAD83 / UTM zone 14N) is in metres (EPSG registry).
+  { name: 'a UTM code with a definition in feet', url: () => '/api/projects', method: 'post', body: () => ({ name: 'X', client: 'Y', crsCode: 'EPSG:26914', crsProj4: '+proj=utm +zone=14 +ellps=GRS80 +units=us-ft +no_defs', unit: 'm', verticalDatum: 'NAVD 88', stationStyle: '1000' }), paths: ['crsProj4'] },
   { name: 'a project with a proj4 string proj4 cannot read', url: () => '/api/projects', method: 'post', body: () => ({ name: 'X', client: 'Y', crsCode: 'CUSTOM', crsProj4: '+proj=nonsense +units=m', unit: 'm', verticalDatum: 'NAVD 88', stationStyle: '1000' }), paths: ['crsProj4'] },
   { name: 'a survey with no version', url: () => `${base()}/holes/${f.hole.id}/survey`, method: 'put', body: () => ({ surveyedTopElevation: 95 }), paths: ['version'] },
   { name: 'a review sent back without a reason', url: () => `${base()}/holes/${f.hole.id}/review`, method: 'post', body: () => ({ decision: 'send_back', version: 1 }), paths: ['reason'] },

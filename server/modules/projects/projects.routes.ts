@@ -9,7 +9,7 @@ import { ApiRouter, idOf, type RouteMeta } from '../../http/api-router';
 import { recompute } from '../clearances/recompute-hook';
 import { ActivityEntry } from '../activity/activity-entry.entity';
 import { User } from '../users/user.entity';
-import { assertValidCrs } from './crs-check';
+import { assertCrsUnit, assertValidCrs } from './crs-check';
 import { projectCounts } from './project-counts';
 import { ProjectMember } from './project-member.entity';
 import { presentMember, presentProject } from './project.presenter';
@@ -35,6 +35,7 @@ export function projectRoutes(registry: RouteMeta[], config: AppConfig): ApiRout
 
   api.post('/', { access: 'project.create', body: projectCreateSchema }, async ({ em, body, user, status }) => {
     assertValidCrs(body.crsProj4);
+    assertCrsUnit(body.crsCode, body.crsProj4, body.unit);
     const dto = await createAudited(
       { em, project: null, user, entity: 'project' },
       (tem) => {
@@ -56,6 +57,7 @@ export function projectRoutes(registry: RouteMeta[], config: AppConfig): ApiRout
 
   api.patch('/:projectId', { access: 'project.update', body: projectUpdateSchema }, async ({ em, project, body, user }) => {
     if (body.crsProj4 !== undefined) assertValidCrs(body.crsProj4);
+    if (body.crsProj4 !== undefined || body.crsCode !== undefined) assertCrsUnit(body.crsCode ?? project.crsCode, body.crsProj4 ?? project.crsProj4, project.unit);
     const counts = (await projectCounts(em, [project.id])).get(project.id)!;
     const { version, ...fields } = body;
     return updateAudited(

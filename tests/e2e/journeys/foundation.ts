@@ -43,6 +43,17 @@ export const FOUNDATION_JOURNEYS: Journey[] = [
       await page.getByRole('link', { name: 'Users' }).first().click();
       for (const u of DEMO_USERS) await page.getByText(u.email).first().waitFor({ timeout: 10_000 });
       await page.screenshot({ path: join(shots, 'admin-users-desktop.png'), fullPage: true });
+      // A CRS code from the built-in catalogue fills in its proj4 definition, unit and station style.
+      // EPSG:26914 is NAD83 / UTM zone 14N, in metres (EPSG registry).
+      await page.getByRole('link', { name: 'Projects', exact: true }).first().click();
+      await page.getByRole('button', { name: 'New project' }).click();
+      const form = page.getByRole('form', { name: 'New project' });
+      await form.getByLabel('CRS code').fill('EPSG:26914');
+      await form.getByRole('status').getByText(/EPSG:26914 .*filled in from the built-in catalogue/).waitFor({ timeout: 15_000 });
+      check((await form.getByLabel('proj4 definition').inputValue()).includes('+proj=utm +zone=14'), 'the proj4 definition was not filled in');
+      check((await form.getByLabel('Linear unit').inputValue()) === 'm', 'the unit was not set to metres');
+      check((await form.getByLabel('Station style').inputValue()) === '1000', 'the station style was not set for metres');
+      await form.getByRole('button', { name: 'Cancel' }).click();
       await signOut(page);
       await signIn(page, baseUrl, 'viewer');
       check((await page.getByRole('link', { name: 'Users' }).count()) === 0, 'a reviewer sees the Users menu');

@@ -1,3 +1,4 @@
+import { useEffect, useState } from 'react';
 import { LINEAR_UNITS, STATION_STYLES, UNIT_LABELS } from '@shared/domain';
 import type { ProjectDto } from '@shared/api';
 import { projectCreateSchema } from '@shared/schemas/project';
@@ -19,12 +20,35 @@ export function ProjectCreateForm({ onCreated, onCancel }: { onCreated: (project
     register,
     handleSubmit,
     setError,
+    setValue,
+    getFieldState,
     watch,
     formState: { errors },
   } = useZodForm(projectCreateSchema, {
     defaultValues: { name: '', client: '', description: null, crsCode: 'EPSG:', crsProj4: '', unit: 'usft', verticalDatum: '', stationStyle: '100' },
   });
   const warning = crsUnitWarning(watch('crsProj4'), watch('unit'));
+
+  // A code in the built-in catalogue fills in its definition and unit (loaded on demand: the
+  // catalogue brings proj4 with it), and the usual station style for that unit.
+  const code = watch('crsCode');
+  const [found, setFound] = useState<string | null>(null);
+  useEffect(() => {
+    let current = true;
+    setFound(null);
+    if (!/^EPSG:\d{4,6}$/i.test(code.trim())) return;
+    void import('@shared/geometry/crs').then(({ findCrs }) => {
+      const crs = findCrs(code);
+      if (!current || !crs) return;
+      setValue('crsProj4', crs.proj4, { shouldValidate: true });
+      setValue('unit', crs.unit, { shouldValidate: true });
+      if (!getFieldState('stationStyle').isDirty) setValue('stationStyle', crs.unit === 'm' ? '1000' : '100');
+      setFound(`${crs.code} ${crs.name}: definition and unit filled in from the built-in catalogue.`);
+    });
+    return () => {
+      current = false;
+    };
+  }, [code, setValue, getFieldState]);
 
   const onSubmit = handleSubmit((values) =>
     create.mutate(values, {
@@ -45,7 +69,7 @@ export function ProjectCreateForm({ onCreated, onCancel }: { onCreated: (project
             required
             autoCapitalize="characters"
             spellCheck={false}
-            hint="EPSG:<number> of the projected grid your survey uses, or CUSTOM."
+            hint="EPSG:<number> of the projected grid your survey uses (known codes fill in the rest), or CUSTOM."
             error={errors.crsCode}
             {...register('crsCode')}
           />
@@ -63,6 +87,7 @@ export function ProjectCreateForm({ onCreated, onCancel }: { onCreated: (project
           error={errors.crsProj4}
           {...register('crsProj4')}
         />
+        {found && <p className="text-sm text-ok-700" role="status">{found}</p>}
         {warning && <Alert tone="caution">{warning}</Alert>}
         <div className="grid gap-4 sm:grid-cols-2">
           <TextField label="Vertical datum" required placeholder="NAVD 88" hint="Printed beside every elevation." error={errors.verticalDatum} {...register('verticalDatum')} />
