@@ -1,4 +1,4 @@
-import type { ReactNode } from 'react';
+import { useEffect, useRef, useState, type ReactNode, type RefObject } from 'react';
 import { cn } from './cn';
 
 /**
@@ -16,15 +16,48 @@ export function TableFrame({ label, caption, head, children, className }: {
   children: ReactNode;
   className?: string;
 }) {
+  const ref = useRef<HTMLDivElement>(null);
+  const more = useMoreToTheRight(ref);
   return (
-    <div className={cn('relative overflow-x-auto rounded-lg border border-ink-200 bg-white', className)} tabIndex={0} role="region" aria-label={label}>
-      <table className="min-w-full border-collapse text-sm">
-        <caption className="sr-only">{caption}</caption>
-        <thead className="bg-ink-50 text-left text-xs font-semibold tracking-wide text-ink-600 uppercase">{head}</thead>
-        <tbody>{children}</tbody>
-      </table>
+    <div className="relative">
+      {more && (
+        <p className="mb-1 text-right text-xs text-ink-500" aria-hidden>
+          More columns: scroll the table sideways →
+        </p>
+      )}
+      <div ref={ref} className={cn('relative overflow-x-auto rounded-lg border border-ink-200 bg-white', className)} tabIndex={0} role="region" aria-label={label}>
+        <table className="min-w-full border-collapse text-sm">
+          <caption className="sr-only">{caption}</caption>
+          <thead className="bg-ink-50 text-left text-xs font-semibold tracking-wide text-ink-600 uppercase">{head}</thead>
+          <tbody>{children}</tbody>
+        </table>
+      </div>
+      {more && <div aria-hidden className="pointer-events-none absolute right-0 bottom-0 h-[calc(100%-1.25rem)] w-8 rounded-r-lg bg-linear-to-l from-ink-900/15 to-transparent" />}
     </div>
   );
+}
+
+/**
+ * True while a scrolling box has columns hidden to its right, so the table can say so: wide
+ * registers on a phone (or a narrow window) otherwise look complete when they are not.
+ */
+function useMoreToTheRight(ref: RefObject<HTMLDivElement | null>): boolean {
+  const [more, setMore] = useState(false);
+  useEffect(() => {
+    const el = ref.current;
+    if (!el) return;
+    const update = () => setMore(el.scrollWidth - el.clientWidth - el.scrollLeft > 4);
+    update();
+    el.addEventListener('scroll', update, { passive: true });
+    const observer = typeof ResizeObserver === 'undefined' ? null : new ResizeObserver(update);
+    observer?.observe(el);
+    if (el.firstElementChild) observer?.observe(el.firstElementChild);
+    return () => {
+      el.removeEventListener('scroll', update);
+      observer?.disconnect();
+    };
+  }, [ref]);
+  return more;
 }
 
 /** Class names of a {@link TableFrame}'s rows and cells. */

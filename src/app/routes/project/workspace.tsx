@@ -103,7 +103,7 @@ function Workspace({ projectId }: { projectId: number }) {
           <Badge title="Horizontal coordinate reference system">{p.crsCode}</Badge>
           <Badge title="Linear unit">{UNIT_LABELS[p.unit]}</Badge>
           <Badge title="Vertical datum">Elevations: {p.verticalDatum}</Badge>
-          <Badge title="Station style">Stations {p.stationStyle === '100' ? '12+34.56' : '1+234.567'}</Badge>
+          <Badge title="How stations are written in this project">Station style {p.stationStyle === '100' ? '12+34.56' : '1+234.567'}</Badge>
         </div>
       </div>
       <Tabs project={p} />
