@@ -28,7 +28,7 @@ async function openLines(page: Page) {
 
 export const LINE_JOURNEYS: Journey[] = [
   {
-    name: 'lines: the designer on a phone adds a line by pasting its vertices, edits its record depth, is refused deleting a line with test holes, and deletes the new line',
+    name: 'lines: the designer on a phone adds a line by pasting its vertices, edits its record depth (a stale save shows both values), is refused deleting a line with test holes, and deletes the new line',
     allowErrors: [...SIGNED_OUT_PROBE, /409 \(Conflict\)/],
     async run({ page, baseUrl, shots }) {
       await page.setViewportSize({ width: 390, height: 844 });
@@ -78,9 +78,20 @@ export const LINE_JOURNEYS: Journey[] = [
       const edit = page.getByRole('form', { name: `Edit line ${LABEL}` });
       await edit.getByLabel('Record depth to top').fill('5.25');
       await noSidewaysScroll(page, 'the edit-line form');
+      // Someone else saves the line (version 1) while the form is open: the save is refused and both values are shown.
+      const [, projectId, lineId] = /\/projects\/(\d+)\/lines\/(\d+)/.exec(page.url()) ?? [];
+      const other = await page.request.patch(`${baseUrl}/api/projects/${projectId}/lines/${lineId}`, { data: { version: 1, notes: 'Owner confirmed by phone' } });
+      check(other.status() === 200, `the other save answered ${other.status()}`);
+      await edit.getByRole('button', { name: 'Save line' }).click();
+      const both = edit.getByRole('list', { name: 'Values changed by the other save' });
+      await both.getByText(/Notes: yours \(blank\); now saved Owner confirmed by phone/).waitFor({ timeout: 15_000 });
+      await both.getByText(/Record depth to top: yours 5\.25; now saved 3\.5/).waitFor();
+      check((await edit.getByLabel('Notes').inputValue()) === 'Owner confirmed by phone', 'the form was not refilled with the saved line');
+      await edit.getByLabel('Record depth to top').fill('5.25');
       await edit.getByRole('button', { name: 'Save line' }).click();
       await page.getByText('Changes saved.').waitFor({ timeout: 15_000 });
       await page.getByText('5.25 US ft below ground').waitFor();
+      await page.getByText('Owner confirmed by phone').waitFor();
       await noSidewaysScroll(page, 'the line page');
       await page.screenshot({ path: join(shots, 'lines-detail-phone.png'), fullPage: true });
 
