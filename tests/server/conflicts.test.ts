@@ -162,6 +162,8 @@ describe('status workflow: open → in review → resolved, each move with a rea
   it('then the history lists found and every move, in order, with who and why', async () => {
     const events = (await get(`${base(f)}/${f.conflict.id}/history`)).body as ConflictEventDto[];
     expect(events.map((e) => e.kind)).toEqual(['found', 'status', 'status', 'status']);
+    // The hand-worked fixture crossing (see the register test above), with its unit.
+    expect(events[0]!.note).toBe('Computed status: Overlap. Clearance -1.10 US ft against 1.50 US ft required (margin -2.60 US ft).');
     expect(events.slice(1).map((e) => e.data)).toEqual([
       { from: 'open', to: 'in_review' },
       { from: 'in_review', to: 'resolved_redesign' },

@@ -1,5 +1,6 @@
 import type { EntityManager } from '@mikro-orm/sqlite';
-import { CLEARANCE_STATUSES, type ClearanceStatus } from '@shared/domain';
+import { CLEARANCE_STATUS_LABELS, CLEARANCE_STATUSES, type ClearanceStatus, type LinearUnit } from '@shared/domain';
+import { UNIT_SYMBOLS } from '@shared/units';
 import type { ClearanceReport, LineClearance, PitConflict } from '@shared/geometry/types';
 import { Bore } from '../bores/bore.entity';
 import { ConflictEvent } from '../conflicts/conflict-event.entity';
@@ -65,7 +66,7 @@ export async function syncConflicts(em: EntityManager, project: Project, report:
         created.figures = figures;
         created.checkedAt = now;
         em.persist(created);
-        em.persist(new ConflictEvent(created, 'found', describe(status, line, pits), { figures }, by));
+        em.persist(new ConflictEvent(created, 'found', describe(status, line, pits, project.unit), { figures }, by));
         continue;
       }
       conflict.checkedAt = now;
@@ -81,7 +82,7 @@ export async function syncConflicts(em: EntityManager, project: Project, report:
         if (kind === 'cleared' && conflict.status === 'open') conflict.status = 'void';
         if (kind === 'failed_again' && conflict.status === 'void') conflict.status = 'open';
       }
-      em.persist(new ConflictEvent(conflict, kind, describe(status, line, pits), { before, after: { status, figures } }, by));
+      em.persist(new ConflictEvent(conflict, kind, describe(status, line, pits, project.unit), { before, after: { status, figures } }, by));
     }
   }
 
@@ -96,9 +97,10 @@ export async function syncConflicts(em: EntityManager, project: Project, report:
   }
 }
 
-function describe(status: ClearanceStatus, line: LineClearance | null, pits: PitConflict[]): string {
-  const parts: string[] = [`Computed status: ${status}.`];
-  if (line && line.clearance !== null) parts.push(`Clearance ${line.clearance.toFixed(2)} against ${line.required.toFixed(2)} required (margin ${line.margin?.toFixed(2) ?? '—'}).`);
-  for (const p of pits) parts.push(`${p.pitKind === 'launch' ? 'Launch' : 'Receiving'} pit: ${p.enters ? 'line enters the footprint' : `line ${p.planGap.toFixed(2)} from the footprint`}.`);
+function describe(status: ClearanceStatus, line: LineClearance | null, pits: PitConflict[], unit: LinearUnit): string {
+  const u = UNIT_SYMBOLS[unit];
+  const parts: string[] = [`Computed status: ${CLEARANCE_STATUS_LABELS[status]}.`];
+  if (line && line.clearance !== null) parts.push(`Clearance ${line.clearance.toFixed(2)} ${u} against ${line.required.toFixed(2)} ${u} required (margin ${line.margin != null ? `${line.margin.toFixed(2)} ${u}` : '—'}).`);
+  for (const p of pits) parts.push(`${p.pitKind === 'launch' ? 'Launch' : 'Receiving'} pit: ${p.enters ? 'line enters the footprint' : `line ${p.planGap.toFixed(2)} ${u} from the footprint`}.`);
   return parts.join(' ');
 }
