@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { BoreDto } from '@shared/api';
 import type { BoreUpdateInput } from '@shared/schemas/bore';
 import { api, isApiError } from '@/lib/api-client';
+import { invalidateAfterBoreWrite } from './invalidate';
 import { boreKeys } from './keys';
 
 export function updateBore(projectId: number, boreId: number, input: BoreUpdateInput): Promise<BoreDto> {
@@ -25,7 +26,8 @@ export function useUpdateBore(projectId: number) {
     mutationFn: ({ boreId, input }: { boreId: number; input: BoreUpdateInput }) => updateBore(projectId, boreId, input),
     onSuccess: (bore) => {
       queryClient.setQueryData<BoreDto[]>(boreKeys.list(projectId), (list) => list?.map((b) => (b.id === bore.id ? bore : b)));
-      return queryClient.invalidateQueries({ queryKey: boreKeys.all });
+      // The server recomputed the clearance register: refresh the conflicts and reports too.
+      return invalidateAfterBoreWrite(queryClient);
     },
     onError: (error) => {
       // Someone saved first: show their bore everywhere, and refetch to be sure.

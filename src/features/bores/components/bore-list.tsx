@@ -62,17 +62,21 @@ function ProfileTable({ title, points, ctx }: { title: string; points: ProfilePo
   );
 }
 
-const PIT_LABELS = { launch: 'Launch pit', receiving: 'Receiving pit' } as const;
+export const PIT_LABELS = { launch: 'Launch pit', receiving: 'Receiving pit' } as const;
 
-/** Each bore as a card: method, length, stations, casing, tolerances, profiles and pits. */
-export function BoreList({ bores, pits, ctx }: { bores: BoreDto[]; pits: PitDto[]; ctx: BoreListContext }) {
+/**
+ * Each bore as a card: method, length, stations, casing, tolerances, profiles and pits. With
+ * `renderTools` (people who may edit bores), the card ends with those tools, which list the pits
+ * themselves.
+ */
+export function BoreList({ bores, pits, ctx, renderTools }: { bores: BoreDto[]; pits: PitDto[]; ctx: BoreListContext; renderTools?: (bore: BoreDto, pits: PitDto[]) => ReactNode }) {
   return (
     <ul className="space-y-4">
       {bores.map((bore) => {
         const length = polylineLength(bore.alignment);
         const borePits = pits.filter((p) => p.boreId === bore.id);
         return (
-          <li key={bore.id} className="rounded-lg border border-ink-200 bg-white">
+          <li key={bore.id} className="rounded-lg border border-ink-200 bg-white" data-testid="bore-card" data-bore-name={bore.name}>
             <div className="flex flex-wrap items-baseline justify-between gap-2 border-b border-ink-200 px-4 py-3">
               <h2 className="text-base font-semibold text-ink-900">{bore.name}</h2>
               <Badge className="bg-brand-100 text-brand-800">{BORE_METHOD_LABELS[bore.method]}</Badge>
@@ -93,7 +97,7 @@ export function BoreList({ bores, pits, ctx }: { bores: BoreDto[]; pits: PitDto[
                 <ProfileTable title="Casing centreline profile" points={bore.profile} ctx={ctx} />
                 <ProfileTable title="Ground profile" points={bore.groundProfile} ctx={ctx} />
               </div>
-              {borePits.length > 0 && (
+              {!renderTools && borePits.length > 0 && (
                 <div>
                   <h3 className="text-sm font-semibold text-ink-800">Pits</h3>
                   <ul className="mt-1 space-y-1 text-sm">
@@ -106,6 +110,7 @@ export function BoreList({ bores, pits, ctx }: { bores: BoreDto[]; pits: PitDto[
                 </div>
               )}
               {bore.notes && <p className="text-sm whitespace-pre-line text-ink-700">{bore.notes}</p>}
+              {renderTools?.(bore, borePits)}
             </div>
           </li>
         );

@@ -1,0 +1,29 @@
+import type { z } from 'zod';
+
+/** Messages for what the shared schemas leave to zod's defaults (empty or unreadable numbers). */
+const errorMap: z.core.$ZodErrorMap = (issue) => {
+  if (issue.code === 'invalid_type') {
+    if (issue.input === undefined || issue.input === null || issue.input === '') return 'is required';
+    if (issue.expected === 'number') return 'must be a number';
+  }
+  if (issue.code === 'invalid_value') return 'choose one of the listed options';
+  return undefined;
+};
+
+/** Problems by dotted path ("alignment.1.0"), as the server's 400 `errors[].path` names them. */
+export type PathErrors = Record<string, string>;
+
+/**
+ * Check a body against a shared schema. Returns the parsed body, or the first problem of each
+ * path (the same paths the server answers with).
+ */
+export function validate<S extends z.ZodType>(schema: S, input: unknown): { data: z.output<S>; errors: null } | { data: null; errors: PathErrors } {
+  const result = schema.safeParse(input, { error: errorMap });
+  if (result.success) return { data: result.data, errors: null };
+  const errors: PathErrors = {};
+  for (const issue of result.error.issues) {
+    const path = issue.path.map(String).join('.');
+    if (!(path in errors)) errors[path] = issue.message;
+  }
+  return { data: null, errors };
+}

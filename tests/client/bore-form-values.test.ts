@@ -1,0 +1,169 @@
+/**
+ * The Bores tab's form logic: pasted vertex lists, and the form's values turned into the create
+ * and update bodies the shared schemas (`shared/schemas/bore.ts`, the server's contract) accept.
+ *
+ * Outside references: the spreadsheet paste is produced by papaparse's `unparse` with a tab
+ * delimiter (the text/tab-separated-values form spreadsheets put on the clipboard, IANA media type
+ * registration); plan lengths use the 3-4-5 right triangle (Pythagoras, a worked example);
+ * stations are read with the shared station parser, whose own tests check it against published
+ * station notation; every body is re-checked with the shared zod schema itself.
+ */
+import Papa from 'papaparse';
+import { describe, expect, it } from 'vitest';
+import { boreCreateSchema, boreUpdateSchema } from '@shared/schemas/bore';
+import type { BoreDto } from '@shared/api';
+import { boreValues, displayPath, emptyBoreValues, profileCoverageWarning, toBoreCreate, toBoreUpdate, type BoreFormValues } from '@/features/bores/utils/bore-form-values';
+import { parseVertexText } from '@/features/bores/utils/vertices';
+
+describe('parseVertexText', () => {
+  it('reads a tab-separated spreadsheet copy with a header row', () => {
+    const text = Papa.unparse(
+      [
+        ['Easting', 'Northing'],
+        [645794.12, 3243453.24],
+        [645816.12, 3243453.24],
+      ],
+      { delimiter: '\t' },
+    );
+    expect(parseVertexText(text)).toEqual({
+      rows: [
+        { e: '645794.12', n: '3243453.24' },
+        { e: '645816.12', n: '3243453.24' },
+      ],
+      problems: [],
+    });
+  });
+
+  it('reads "E, N" and "E N" lines (CAD point lists), with blank lines and CRLF', () => {
+    const { rows, problems } = parseVertexText('1000.5, 2000.25\r\n\r\n1003.5   2004.25\n-12 7e2\n');
+    expect(problems).toEqual([]);
+    expect(rows).toEqual([
+      { e: '1000.5', n: '2000.25' },
+      { e: '1003.5', n: '2004.25' },
+      { e: '-12', n: '7e2' },
+    ]);
+  });
+
+  it('names each line that is not two numbers, by its line number', () => {
+    const { problems } = parseVertexText('1000, 2000\n1003 north\n1, 2, 3\n1,5 2,5');
+    expect(problems.map((p) => p.line)).toEqual([2, 3, 4]);
+  });
+});
+
+/** A filled-in new bore: a 3-4-5 alignment from (1000, 2000), begin station 1+000 (1000-unit stations). */
+function filled(overrides: Partial<BoreFormValues> = {}): BoreFormValues {
+  return {
+    ...emptyBoreValues('1000'),
+    name: 'Bore A',
+    method: 'auger_bore',
+    beginStation: '1+000',
+    vertices: [
+      { e: '1000', n: '2000' },
+      { e: '1003', n: '2004' },
+    ],
+    casingOd: '0.3',
+    toleranceHorizontal: '0.3',
+    toleranceVertical: '0.15',
+    minCover: '0.75',
+    entryElevation: '125.5',
+    exitElevation: '124.5',
+    ...overrides,
+  };
+}
+
+describe('toBoreCreate', () => {
+  it('a straight profile runs from the begin station to begin + plan length (3-4-5: 5 units)', () => {
+    const result = toBoreCreate(filled(), '1000');
+    expect(result.errors).toBeNull();
+    expect(result.input?.profile).toEqual([
+      { station: 1000, elevation: 125.5 },
+      { station: 1005, elevation: 124.5 },
+    ]);
+    expect(result.input?.beginStation).toBe(1000);
+    expect(result.input?.alignment).toEqual([
+      [1000, 2000],
+      [1003, 2004],
+    ]);
+    expect(result.input?.groundProfile).toEqual([]);
+    expect(result.input?.carrierSize).toBeNull();
+    expect(boreCreateSchema.safeParse(result.input).success).toBe(true);
+  });
+
+  it('an empty form names every missing field, the straight profile on its entry and exit fields', () => {
+    const result = toBoreCreate(emptyBoreValues('100'), '100');
+    const shown = Object.keys(result.errors ?? {}).map((p) => displayPath(p, 'straight'));
+    expect(shown).toEqual(
+      expect.arrayContaining(['name', 'casingOd', 'toleranceHorizontal', 'toleranceVertical', 'minCover', 'alignment.0.0', 'alignment.1.1', 'entryElevation', 'exitElevation']),
+    );
+    expect(result.errors?.name).toBe('is required');
+    // the default begin station 0+00.00 is fine
+    expect(result.errors?.beginStation).toBeUndefined();
+  });
+
+  it('a station not in the project style says why, on the begin station', () => {
+    const result = toBoreCreate(filled({ beginStation: '10+00' }), '1000');
+    expect(result.errors?.beginStation).toMatch(/not a 1000-unit station/);
+    expect(result.errors?.beginStation).toMatch(/100-unit station/);
+  });
+
+  it('unreadable numbers and a zero-length alignment are refused by field', () => {
+    const result = toBoreCreate(filled({ casingOd: '0,3x', vertices: [{ e: '1000', n: '2000' }, { e: '1000', n: '2000' }] }), '1000');
+    expect(result.errors?.casingOd).toBe('must be a number');
+    expect(result.errors?.alignment).toMatch(/no length/);
+  });
+
+  it('profile points: stations are parsed in the project style and must increase (the schema rule)', () => {
+    const ok = toBoreCreate(
+      filled({ profileMode: 'points', profilePoints: [{ station: '1+000', elevation: '125' }, { station: '1+002.5', elevation: '124' }, { station: '1+005', elevation: '125' }] }),
+      '1000',
+    );
+    expect(ok.input?.profile.map((p) => p.station)).toEqual([1000, 1002.5, 1005]);
+    const bad = toBoreCreate(filled({ profileMode: 'points', profilePoints: [{ station: '1+004', elevation: '125' }, { station: '1+001', elevation: '124' }] }), '1000');
+    expect(bad.errors?.['profile.1.station']).toBe('stations must increase along the profile');
+  });
+});
+
+const SAVED: BoreDto = {
+  id: 7,
+  projectId: 1,
+  name: 'Bore A',
+  method: 'hdd',
+  alignment: [
+    [1000, 2000],
+    [1003, 2004],
+  ],
+  beginStation: 1000,
+  profile: [
+    { station: 1000, elevation: 125 },
+    { station: 1005, elevation: 125 },
+  ],
+  groundProfile: [],
+  casingOd: 0.3,
+  carrierSize: null,
+  toleranceHorizontal: 0.3,
+  toleranceVertical: 0.15,
+  minCover: 0.75,
+  notes: null,
+  version: 4,
+  createdAt: '2026-01-01T00:00:00Z',
+  updatedAt: '2026-01-01T00:00:00Z',
+};
+
+describe('toBoreUpdate and the profile warning', () => {
+  it('sends the edited fields with the version, never the profiles', () => {
+    const values = { ...boreValues(SAVED, '1000'), name: 'Bore A (revised)' };
+    const result = toBoreUpdate(values, '1000', SAVED.version);
+    expect(result.errors).toBeNull();
+    expect(result.input).toMatchObject({ name: 'Bore A (revised)', version: 4, beginStation: 1000, casingOd: 0.3 });
+    expect(result.input).not.toHaveProperty('profile');
+    expect(result.input).not.toHaveProperty('groundProfile');
+    expect(boreUpdateSchema.safeParse(result.input).success).toBe(true);
+  });
+
+  it('warns when the alignment would run past the casing profile, not when it stays inside', () => {
+    expect(profileCoverageWarning(boreValues(SAVED, '1000'), SAVED, '1000')).toBeNull();
+    const moved = profileCoverageWarning({ ...boreValues(SAVED, '1000'), beginStation: '1+002' }, SAVED, '1000');
+    expect(moved).toContain('1+002.000 to 1+007.000');
+    expect(moved).toContain('1+000.000 to 1+005.000');
+  });
+});

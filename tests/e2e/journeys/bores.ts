@@ -1,0 +1,150 @@
+/**
+ * Bores tab (issue: entering bores and pits in the browser). On a phone, the designer adds a
+ * short second bore to the creek demo by typing a two-vertex alignment across the demo's 8-in
+ * water main, with a straight profile, then edits its casing; Plan & profile then lists it and gives that line a
+ * computed clearance status; the designer adds a launch pit, and finally deletes the bore (its
+ * conflicts carry no decisions), so the demo data later journeys see is as seeded.
+ */
+import type { Page } from 'playwright-core';
+import { CLEARANCE_STATUSES } from '../../../shared/domain';
+import { formatStation } from '../../../shared/geometry';
+import { CREEK_HDD_SCENARIO } from '../../../seeds/demo';
+import { check, signIn, SIGNED_OUT_PROBE, type Journey } from './support';
+
+const BORE_NAME = 'Journey bore across the mill road main';
+
+async function noSidewaysScroll(page: Page, where: string): Promise<void> {
+  const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+  check(overflow <= 1, `${where}: the page scrolls sideways by ${overflow} px at 390 px wide`);
+}
+
+async function openBores(page: Page, projectName: string): Promise<void> {
+  await page.getByRole('link', { name: 'Projects' }).first().click();
+  await page.getByText(projectName).first().click();
+  await page.getByRole('link', { name: 'Bores' }).first().click();
+  await page.getByRole('heading', { name: 'Bores', exact: true }).waitFor({ timeout: 30_000 });
+  await page.locator('[data-testid="bore-card"]').first().waitFor({ timeout: 30_000 });
+}
+
+export const BORE_JOURNEYS: Journey[] = [
+  {
+    name: 'bores: on a phone the designer adds a bore across a demo line, sees its clearance in Plan & profile, adds a pit, then deletes the bore',
+    allowErrors: SIGNED_OUT_PROBE,
+    async run({ page, baseUrl, shots }) {
+      const s = CREEK_HDD_SCENARIO;
+      const water = s.lines.find((l) => l.key === 'water-8');
+      check(water && water.path.length === 2, 'the creek demo has no straight 8-in water main');
+      // A point 30 % along the water main (south of the demo bore), and a bore running east across it there.
+      const [[e0, n0], [e1, n1]] = water.path as [[number, number], [number, number]];
+      const cross = { e: e0 + 0.3 * (e1 - e0), n: n0 + 0.3 * (n1 - n0) };
+      const west = { e: +(cross.e - 12).toFixed(2), n: +cross.n.toFixed(2) };
+      const east = { e: +(cross.e + 10).toFixed(2), n: +cross.n.toFixed(2) };
+      const style = s.project.stationStyle;
+
+      await page.setViewportSize({ width: 390, height: 844 });
+      await signIn(page, baseUrl, 'designer');
+      await openBores(page, s.project.name);
+      const before = await page.locator('[data-testid="bore-card"]').count();
+
+      await page.getByRole('button', { name: 'Add bore', exact: true }).click();
+      const form = page.getByRole('form', { name: 'New bore' });
+      await form.waitFor({ timeout: 15_000 });
+      // the project's frame is shown beside the fields
+      const frame = await form.getByTestId('bore-form-frame').innerText();
+      check(frame.includes(s.project.crsCode) && frame.includes(s.project.verticalDatum) && frame.includes('metres'), `the form does not show the project's CRS, datum and unit: "${frame}"`);
+
+      // nothing filled in: the problems name their fields
+      await form.getByRole('button', { name: 'Add bore' }).click();
+      await form.getByText('Name is required').first().waitFor({ timeout: 10_000 });
+      await form.getByText('Casing outside diameter is required').first().waitFor({ timeout: 10_000 });
+      await form.getByText('Vertex 1 easting is required').first().waitFor({ timeout: 10_000 });
+
+      // a pasted list with a line that is not two numbers is refused and the line named
+      await form.getByRole('button', { name: 'Paste vertices' }).click();
+      await form.getByLabel('Pasted vertices').fill(`Easting, Northing\n${west.e}, ${west.n}\n${east.e} north`);
+      await form.getByRole('button', { name: 'Use pasted vertices' }).click();
+      await form.getByText(`line 3:`).waitFor({ timeout: 10_000 });
+      await form.getByRole('button', { name: 'Paste vertices' }).click(); // close the paste box
+
+      await form.getByLabel('Name', { exact: true }).fill(BORE_NAME);
+      await form.getByLabel('Method').selectOption('auger_bore');
+      await form.getByLabel('Begin station').fill(formatStation(0, style, 0));
+      await form.getByLabel('Vertex 1 easting').fill(String(west.e));
+      await form.getByLabel('Vertex 1 northing').fill(String(west.n));
+      await form.getByLabel('Vertex 2 easting').fill(String(east.e));
+      await form.getByLabel('Vertex 2 northing').fill(String(east.n));
+      await form.getByLabel('Casing outside diameter').fill('0.3');
+      await form.getByLabel('Tolerance, line').fill('0.3');
+      await form.getByLabel('Tolerance, grade').fill('0.15');
+      await form.getByLabel('Minimum cover').fill('0.75');
+      await form.getByLabel('Entry elevation').fill('125.5');
+      await form.getByLabel('Exit elevation').fill('125.5');
+      // the plan length is worked out from the typed vertices (22 m by construction)
+      const length = await form.getByTestId('bore-form-length').innerText();
+      check(/Plan length 22\.00+ m/.test(length), `plan length shown as "${length}", expected 22 m`);
+      await noSidewaysScroll(page, 'the new-bore form');
+      await page.screenshot({ path: `${shots}/bores-new-bore-phone.png`, fullPage: true });
+      await form.getByRole('button', { name: 'Add bore' }).click();
+
+      const card = page.locator(`[data-testid="bore-card"][data-bore-name="${BORE_NAME}"]`);
+      await card.waitFor({ timeout: 30_000 });
+      check((await page.locator('[data-testid="bore-card"]').count()) === before + 1, 'the new bore is not listed once');
+      const facts = await card.innerText();
+      check(/22\.00+ m/.test(facts) && facts.includes(formatStation(22, style)), `the new bore's card does not show its length and end station: ${facts.slice(0, 300)}`);
+
+      // edit it: a larger casing, saved with its version
+      await card.getByRole('button', { name: 'Edit bore' }).click();
+      const editForm = card.getByRole('form', { name: `Edit ${BORE_NAME}` });
+      await editForm.waitFor({ timeout: 15_000 });
+      check((await editForm.getByLabel('Vertex 2 easting').inputValue()) === String(east.e), 'the edit form does not show the saved alignment');
+      await editForm.getByLabel('Casing outside diameter').fill('0.35');
+      await noSidewaysScroll(page, 'the edit-bore form');
+      await editForm.getByRole('button', { name: 'Save bore' }).click();
+      await editForm.waitFor({ state: 'detached', timeout: 30_000 });
+      await card.getByText('0.350 m (350 mm)').waitFor({ timeout: 30_000 });
+
+      // a launch pit at the west end
+      await card.getByRole('button', { name: 'Add pit' }).click();
+      const pitForm = card.getByRole('form', { name: `New pit for ${BORE_NAME}` });
+      await pitForm.waitFor({ timeout: 15_000 });
+      const corners: [number, number][] = [
+        [west.e - 3, west.n - 1.5],
+        [west.e, west.n - 1.5],
+        [west.e, west.n + 1.5],
+        [west.e - 3, west.n + 1.5],
+      ];
+      for (const [i, [e, n]] of corners.entries()) {
+        await pitForm.getByLabel(`Corner ${i + 1} easting`).fill(e.toFixed(2));
+        await pitForm.getByLabel(`Corner ${i + 1} northing`).fill(n.toFixed(2));
+      }
+      await pitForm.getByLabel('Bottom elevation').fill('125.1');
+      await noSidewaysScroll(page, 'the new-pit form');
+      await pitForm.getByRole('button', { name: 'Add pit' }).click();
+      await card.getByTestId('pit-row').getByText(/Launch pit: bottom 125\.10* m NAVD 88, 4-corner footprint/).waitFor({ timeout: 30_000 });
+
+      // Plan & profile lists the bore, and the water main it crosses has a computed status
+      await page.getByRole('link', { name: 'Plan & profile' }).first().click();
+      const boreSelect = page.getByLabel('Bore', { exact: true });
+      await boreSelect.waitFor({ timeout: 30_000 });
+      await boreSelect.selectOption({ label: BORE_NAME });
+      const row = page.locator(`[data-testid="clearance-table"] tbody tr[data-line-label="${water.label}"]`);
+      await row.waitFor({ timeout: 30_000 });
+      let status = '';
+      for (let i = 0; i < 60; i++) {
+        status = (await row.getAttribute('data-status')) ?? '';
+        if ((CLEARANCE_STATUSES as readonly string[]).includes(status)) break;
+        await page.waitForTimeout(500);
+      }
+      check((CLEARANCE_STATUSES as readonly string[]).includes(status), `the water main crossed by the new bore has status "${status}", not a computed clearance status`);
+      await page.screenshot({ path: `${shots}/bores-new-bore-plan.png`, fullPage: true });
+
+      // delete it again: a confirm step, then it is gone (no decisions on its conflicts)
+      await page.getByRole('link', { name: 'Bores' }).first().click();
+      await card.waitFor({ timeout: 30_000 });
+      await card.getByRole('button', { name: 'Delete bore' }).click();
+      await card.getByRole('button', { name: 'Delete the bore for good' }).click();
+      await card.waitFor({ state: 'detached', timeout: 30_000 });
+      check((await page.locator('[data-testid="bore-card"]').count()) === before, 'the deleted bore is still listed');
+    },
+  },
+];
