@@ -566,7 +566,7 @@ export function ProfileStrip(props: ProfileStripProps) {
           </text>
           {coverInfo && (
             <text x={narrow ? 6 : M.left + 4} y={narrow ? 26 : 14} className={coverInfo.belowMinimum ? 'fill-danger-700 font-semibold' : 'fill-ink-700'}>
-              Least cover {formatNumber(coverInfo.minimum, digits)} {u} at {formatStation(coverInfo.station, stationStyle)} (minimum {formatNumber(bore.minCover, digits)})
+              Least cover {formatNumber(coverInfo.minimum, digits)} {u} at {formatStation(coverInfo.station, stationStyle)} (minimum {formatNumber(bore.minCover, digits)} {u})
             </text>
           )}
         </g>
