@@ -1,7 +1,8 @@
 /**
  * Bores tab (issue: entering bores and pits in the browser). On a phone, the designer adds a
  * short second bore to the creek demo by typing a two-vertex alignment across the demo's 8-in
- * water main, with a straight profile, then edits its casing; Plan & profile then lists it and gives that line a
+ * water main, with a straight profile, then edits its casing (while someone else renames it: the stale save shows
+ * both versions and the designer saves hers over it); Plan & profile then lists it and gives that line a
  * computed clearance status; the designer adds a launch pit, and finally deletes the bore (its
  * conflicts carry no decisions), so the demo data later journeys see is as seeded.
  */
@@ -29,7 +30,8 @@ async function openBores(page: Page, projectName: string): Promise<void> {
 export const BORE_JOURNEYS: Journey[] = [
   {
     name: 'bores: on a phone the designer adds a bore across a demo line, sees its clearance in Plan & profile, adds a pit, then deletes the bore',
-    allowErrors: SIGNED_OUT_PROBE,
+    // the 409 of the deliberately stale save is logged by the browser
+    allowErrors: [...SIGNED_OUT_PROBE, /409 \(Conflict\)/],
     async run({ page, baseUrl, shots }) {
       const s = CREEK_HDD_SCENARIO;
       const water = s.lines.find((l) => l.key === 'water-8');
@@ -93,13 +95,32 @@ export const BORE_JOURNEYS: Journey[] = [
       check(/22\.00+ m/.test(facts) && facts.includes(formatStation(22, style)), `the new bore's card does not show its length and end station: ${facts.slice(0, 300)}`);
 
       // edit it: a larger casing, saved with its version
+      const href = (await card.getByRole('link', { name: /with live clearances$/ }).getAttribute('href')) ?? '';
+      const boreId = Number(/bore=(\d+)/.exec(href)?.[1]);
+      const projectId = Number(/\/projects\/(\d+)/.exec(page.url())?.[1]);
+      check(boreId > 0 && projectId > 0, `no bore or project id in ${href} / ${page.url()}`);
       await card.getByRole('button', { name: 'Edit bore' }).click();
-      const editForm = card.getByRole('form', { name: `Edit ${BORE_NAME}` });
+      // found on the page: while the other name is shown, the card carries that name
+      const editForm = page.getByRole('form', { name: `Edit ${BORE_NAME}` });
       await editForm.waitFor({ timeout: 15_000 });
       check((await editForm.getByLabel('Vertex 2 easting').inputValue()) === String(east.e), 'the edit form does not show the saved alignment');
       await editForm.getByLabel('Casing outside diameter').fill('0.35');
       await noSidewaysScroll(page, 'the edit-bore form');
+      // meanwhile someone else renames the bore (a PATCH from this session, with the version the form holds)
+      const renamed = await page.evaluate(async ({ projectId, boreId }) => {
+        const url = `/api/projects/${projectId}/bores/${boreId}`;
+        const bore = (await (await fetch(url)).json()) as { version: number };
+        const res = await fetch(url, { method: 'PATCH', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ version: bore.version, name: 'Renamed meanwhile' }) });
+        return res.status;
+      }, { projectId, boreId });
+      check(renamed === 200, `the other save answered ${renamed}`);
       await editForm.getByRole('button', { name: 'Save bore' }).click();
+      // the 409 shows both versions: their name beside mine, my casing beside theirs
+      const compare = editForm.getByRole('region', { name: 'Your version and the saved version' });
+      await compare.waitFor({ timeout: 30_000 });
+      const compareText = await compare.innerText();
+      check(compareText.includes('Renamed meanwhile') && compareText.includes(BORE_NAME) && compareText.includes('0.35') && compareText.includes('0.3'), `the stale view does not show both versions: ${compareText}`);
+      await editForm.getByRole('button', { name: 'Save mine over theirs' }).click();
       await editForm.waitFor({ state: 'detached', timeout: 30_000 });
       await card.getByText('0.350 m (350 mm)').waitFor({ timeout: 30_000 });
 

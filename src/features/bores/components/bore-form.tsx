@@ -213,7 +213,8 @@ export function BoreForm({ project, bore, onDone, onCancel }: { project: Project
   const alignment = rowsToPoints(values.vertices);
   const planLength = alignment.every(([e, n]) => Number.isFinite(e) && Number.isFinite(n)) ? polylineLength(alignment as [number, number][]) : null;
   const coverage = bore ? profileCoverageWarning(values, bore, style) : null;
-  const title = bore ? `Edit ${bore.name}` : 'New bore';
+  // Named as opened: a newer name someone saved meanwhile shows in the card and the comparison.
+  const [title] = useState(() => (bore ? `Edit ${bore.name}` : 'New bore'));
 
   return (
     <form id={formId} onSubmit={onSubmit} noValidate className="space-y-4 rounded-lg border border-brand-200 bg-white p-4" aria-label={title}>

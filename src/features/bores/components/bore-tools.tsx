@@ -1,8 +1,10 @@
 import { useState } from 'react';
+import { Link } from 'react-router-dom';
 import type { BoreDto, PitDto, ProjectDto } from '@shared/api';
 import { PIT_KINDS } from '@shared/domain';
 import { ProblemAlert } from '@/components/ui/alert';
 import { Button, ButtonLink } from '@/components/ui/button';
+import { isApiError } from '@/lib/api-client';
 import { formatElevation } from '@/lib/format';
 import { useDeleteBore } from '../api/delete-bore';
 import { useDeletePit } from '../api/delete-pit';
@@ -26,6 +28,8 @@ export function BoreTools({ project, bore, pits }: { project: ProjectDto; bore: 
     removeBore.reset();
     removePit.reset();
   };
+  // A refused delete (409 in_use) names the conflicts whose decisions keep the bore.
+  const heldBy = isApiError(removeBore.error) && removeBore.error.problem.code === 'in_use' ? (removeBore.error.problem.holds?.conflicts ?? []) : [];
   const freeKind = PIT_KINDS.find((k) => !pits.some((p) => p.kind === k)) ?? 'launch';
 
   return (
@@ -94,6 +98,19 @@ export function BoreTools({ project, bore, pits }: { project: ProjectDto; bore: 
             </Button>
           </div>
           {removeBore.error && <ProblemAlert error={removeBore.error} />}
+          {heldBy.length > 0 && (
+            <p>
+              Open the conflicts that hold it:{' '}
+              {heldBy.map((id, i) => (
+                <span key={id}>
+                  {i > 0 && ', '}
+                  <Link className="font-medium text-brand-800 underline" to={`../conflicts/${id}`}>
+                    #{id}
+                  </Link>
+                </span>
+              ))}
+            </p>
+          )}
         </div>
       )}
       {open?.kind !== 'edit' && open?.kind !== 'delete' && (
