@@ -4,7 +4,8 @@
  * water main, with a straight profile, then edits its casing (while someone else renames it: the stale save shows
  * both versions and the designer saves hers over it); Plan & profile then lists it and gives that line a
  * computed clearance status; the designer adds a launch pit, and finally deletes the bore (its
- * conflicts carry no decisions), so the demo data later journeys see is as seeded.
+ * conflicts carry no decisions), so the demo data later journeys see is as seeded. A field crew
+ * then sees the bores without any editing buttons.
  */
 import type { Page } from 'playwright-core';
 import { CLEARANCE_STATUSES } from '../../../shared/domain';
@@ -166,6 +167,13 @@ export const BORE_JOURNEYS: Journey[] = [
       await card.getByRole('button', { name: 'Delete the bore for good' }).click();
       await card.waitFor({ state: 'detached', timeout: 30_000 });
       check((await page.locator('[data-testid="bore-card"]').count()) === before, 'the deleted bore is still listed');
+
+      // a field crew reads the bores but is offered no bore or pit editing (bore.write is the designer's and the administrator's)
+      await signIn(page, baseUrl, 'field');
+      await openBores(page, s.project.name);
+      for (const name of ['Add bore', 'Edit bore', 'Delete bore', 'Add pit']) {
+        check((await page.getByRole('button', { name, exact: true }).count()) === 0, `a field crew is offered "${name}"`);
+      }
     },
   },
 ];
