@@ -137,6 +137,9 @@ describe('fuzzing every write endpoint', () => {
     const routes = (ctx.app.locals.routes as RouteMeta[]).filter((r) => r.hasBody);
     for (const route of routes) {
       const template = TEMPLATES[`${route.method} ${route.path}`]!(f);
+      // Each route's seed is printed with any failure, so the run can be repeated (fc.assert's `seed`).
+      const seed = Number(process.env.FUZZ_SEED ?? Math.floor(Math.random() * 2 ** 31));
+      const countBefore = failures.length;
       await fc.assert(
         fc.asyncProperty(malformed(template), async (body) => {
           const res = await fetch(base + urlOf(route.path), {
@@ -152,8 +155,14 @@ describe('fuzzing every write endpoint', () => {
           if (!ok && failures.length < 20) failures.push(`${route.method} ${route.path} ${res.status} ${body.slice(0, 120)} → ${text.slice(0, 200)}`);
           return ok;
         }),
-        { numRuns: RUNS, endOnFailure: true },
-      ).catch(() => undefined);
+        { numRuns: RUNS, endOnFailure: true, seed },
+      ).catch((err: unknown) => {
+        // A property that threw (e.g. the connection dropped) is a failure too, not a pass.
+        if (failures.length === countBefore) failures.push(`${route.method} ${route.path}: ${err instanceof Error ? err.message.split('\n')[0] : String(err)}`);
+      });
+      if (failures.length > countBefore) failures.push(`  (repeat with FUZZ_SEED=${seed})`);
+      const now = await tableCounts(ctx.orm);
+      if (JSON.stringify(now) !== JSON.stringify(before)) failures.push(`${route.method} ${route.path} wrote: ${JSON.stringify(Object.fromEntries(Object.entries(now).filter(([t, n]) => before[t] !== n)))} (FUZZ_SEED=${seed})`);
     }
     expect(failures).toEqual([]);
     expect(await tableCounts(ctx.orm)).toEqual(before);
