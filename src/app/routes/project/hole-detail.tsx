@@ -77,6 +77,13 @@ function HoleBody({ hole }: { hole: HoleDto }) {
     lineLabel: (id) => lines.data?.find((l) => l.id === id)?.label ?? `line ${id}`,
     boreName: (id) => bores.data?.find((b) => b.id === id)?.name ?? `bore ${id}`,
   };
+  // The surveyor comes to a hole to tie it in: on a phone the form sits above the photos.
+  const surveyFirst = user.role === 'surveyor';
+  const surveyPanel = (
+    <Panel title="Survey tie-in">
+      <SurveyForm hole={hole} project={project} ctx={ctx} />
+    </Panel>
+  );
 
   return (
     <div className="space-y-4">
@@ -149,6 +156,8 @@ function HoleBody({ hole }: { hole: HoleDto }) {
 
       <HoleFacts hole={hole} line={line} project={project} ctx={ctx} />
 
+      {canSurvey && surveyFirst && surveyPanel}
+
       <Panel title={`Photos (${photos.data?.length ?? hole.photoCount})`}>
         <div className="space-y-4">
           {photos.isPending ? (
@@ -164,11 +173,7 @@ function HoleBody({ hole }: { hole: HoleDto }) {
         </div>
       </Panel>
 
-      {canSurvey && (
-        <Panel title="Survey tie-in">
-          <SurveyForm hole={hole} project={project} ctx={ctx} />
-        </Panel>
-      )}
+      {canSurvey && !surveyFirst && surveyPanel}
 
       {canReview && (
         <Panel title="Review">
