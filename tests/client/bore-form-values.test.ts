@@ -12,7 +12,7 @@ import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
 import { boreCreateSchema, boreUpdateSchema } from '@shared/schemas/bore';
 import type { BoreDto } from '@shared/api';
-import { boreValues, displayPath, emptyBoreValues, profileCoverageWarning, toBoreCreate, toBoreUpdate, type BoreFormValues } from '@/features/bores/utils/bore-form-values';
+import { boreValues, displayPath, emptyBoreValues, profileCoverageWarning, SHOWN_PATH, toBoreCreate, toBoreUpdate, type BoreFormValues } from '@/features/bores/utils/bore-form-values';
 import { parseVertexText } from '@/features/bores/utils/vertices';
 
 describe('parseVertexText', () => {
@@ -112,6 +112,25 @@ describe('toBoreCreate', () => {
     expect(result.errors?.alignment).toMatch(/no length/);
   });
 
+  it('a ground profile: stations parsed in the project style, in increasing order, two or more points', () => {
+    const ok = toBoreCreate(filled({ groundPoints: [{ station: '1+000', elevation: '127.5' }, { station: '1+002.5', elevation: '127.2' }, { station: '1+005', elevation: '127.8' }] }), '1000');
+    expect(ok.errors).toBeNull();
+    expect(ok.input?.groundProfile).toEqual([
+      { station: 1000, elevation: 127.5 },
+      { station: 1002.5, elevation: 127.2 },
+      { station: 1005, elevation: 127.8 },
+    ]);
+    expect(boreCreateSchema.safeParse(ok.input).success).toBe(true);
+    const backwards = toBoreCreate(filled({ groundPoints: [{ station: '1+004', elevation: '127' }, { station: '1+001', elevation: '127' }] }), '1000');
+    expect(backwards.errors?.['groundProfile.1.station']).toBe('stations must increase along the profile');
+    const bad = toBoreCreate(filled({ groundPoints: [{ station: '1+000', elevation: '127' }, { station: '1+001', elevation: 'x' }, { station: '10+00', elevation: '127' }] }), '1000');
+    expect(bad.errors?.['groundProfile.1.elevation']).toBe('must be a number');
+    expect(bad.errors?.['groundProfile.2.station']).toMatch(/not a 1000-unit station/);
+    const one = toBoreCreate(filled({ groundPoints: [{ station: '1+000', elevation: '127' }] }), '1000');
+    expect(one.errors?.groundProfile).toBe('needs at least two points, or none');
+    expect(SHOWN_PATH.test('groundProfile.2.station')).toBe(true);
+  });
+
   it('profile points: stations are parsed in the project style and must increase (the schema rule)', () => {
     const ok = toBoreCreate(
       filled({ profileMode: 'points', profilePoints: [{ station: '1+000', elevation: '125' }, { station: '1+002.5', elevation: '124' }, { station: '1+005', elevation: '125' }] }),
@@ -150,14 +169,33 @@ const SAVED: BoreDto = {
 };
 
 describe('toBoreUpdate and the profile warning', () => {
-  it('sends the edited fields with the version, never the profiles', () => {
+  it('sends the edited fields and the ground profile with the version, never the casing profile', () => {
     const values = { ...boreValues(SAVED, '1000'), name: 'Bore A (revised)' };
     const result = toBoreUpdate(values, '1000', SAVED.version);
     expect(result.errors).toBeNull();
-    expect(result.input).toMatchObject({ name: 'Bore A (revised)', version: 4, beginStation: 1000, casingOd: 0.3 });
+    expect(result.input).toMatchObject({ name: 'Bore A (revised)', version: 4, beginStation: 1000, casingOd: 0.3, groundProfile: [] });
     expect(result.input).not.toHaveProperty('profile');
-    expect(result.input).not.toHaveProperty('groundProfile');
     expect(boreUpdateSchema.safeParse(result.input).success).toBe(true);
+  });
+
+  it('shows a saved ground profile in the project style and sends it back as edited', () => {
+    const saved: BoreDto = { ...SAVED, groundProfile: [{ station: 1000, elevation: 127.5 }, { station: 1002.5, elevation: 127.2 }, { station: 1005, elevation: 127.8 }] };
+    const values = boreValues(saved, '1000');
+    // 1000-unit station style: 1002.5 is 1+002.500 (shared station formatter)
+    expect(values.groundPoints).toEqual([
+      { station: '1+000.000', elevation: '127.5' },
+      { station: '1+002.500', elevation: '127.2' },
+      { station: '1+005.000', elevation: '127.8' },
+    ]);
+    const edited = { ...values, groundPoints: values.groundPoints.map((p, i) => (i === 1 ? { ...p, elevation: '127.075' } : p)) };
+    const result = toBoreUpdate(edited, '1000', saved.version);
+    expect(result.input?.groundProfile).toEqual([
+      { station: 1000, elevation: 127.5 },
+      { station: 1002.5, elevation: 127.075 },
+      { station: 1005, elevation: 127.8 },
+    ]);
+    // and emptied: the bore then has no ground line
+    expect(toBoreUpdate({ ...values, groundPoints: [] }, '1000', saved.version).input?.groundProfile).toEqual([]);
   });
 
   it('warns when the alignment would run past the casing profile, not when it stays inside', () => {

@@ -1,9 +1,9 @@
 /**
  * Bores tab (issue: entering bores and pits in the browser). On a phone, the designer adds a
  * short second bore to the creek demo by typing a two-vertex alignment across the demo's 8-in
- * water main, with a straight profile, then edits its casing (while someone else renames it: the stale save shows
+ * water main, with a straight profile and a pasted three-point ground profile, then edits its casing (while someone else renames it: the stale save shows
  * both versions and the designer saves hers over it); Plan & profile then lists it and gives that line a
- * computed clearance status; the designer adds a launch pit, and finally deletes the bore (its
+ * computed clearance status and the profile strip its least cover (from the ground profile as edited); the designer adds a launch pit, and finally deletes the bore (its
  * conflicts carry no decisions), so the demo data later journeys see is as seeded. A field crew
  * then sees the bores without any editing buttons.
  */
@@ -82,6 +82,13 @@ export const BORE_JOURNEYS: Journey[] = [
       await form.getByLabel('Minimum cover').fill('0.75');
       await form.getByLabel('Entry elevation').fill('125.5');
       await form.getByLabel('Exit elevation').fill('125.5');
+      // the ground profile, pasted as a surveyor's "station, elevation" list with a header line
+      await form.getByRole('button', { name: 'Paste ground points' }).click();
+      await form
+        .getByLabel('Pasted ground points')
+        .fill(`Station, Elevation\n${formatStation(0, style)}, 127.5\n${formatStation(11, style)} 127.2\n${formatStation(22, style)}\t127.8`);
+      await form.getByRole('button', { name: 'Replace the ground profile with these' }).click();
+      check((await form.getByLabel('Ground point 3 elevation').inputValue()) === '127.8', 'the pasted ground profile did not fill the rows');
       // the plan length is worked out from the typed vertices (22 m by construction)
       const length = await form.getByTestId('bore-form-length').innerText();
       check(/Plan length 22\.00+ m/.test(length), `plan length shown as "${length}", expected 22 m`);
@@ -106,6 +113,10 @@ export const BORE_JOURNEYS: Journey[] = [
       await editForm.waitFor({ timeout: 15_000 });
       check((await editForm.getByLabel('Vertex 2 easting').inputValue()) === String(east.e), 'the edit form does not show the saved alignment');
       await editForm.getByLabel('Casing outside diameter').fill('0.35');
+      // the saved ground profile is shown in the project's station style, and a point is lowered
+      const groundStation = await editForm.getByLabel('Ground point 2 station').inputValue();
+      check(groundStation === formatStation(11, style), `the edit form shows ground point 2 at "${groundStation}", not ${formatStation(11, style)}`);
+      await editForm.getByLabel('Ground point 2 elevation').fill('127.075');
       await noSidewaysScroll(page, 'the edit-bore form');
       // meanwhile someone else renames the bore (a PATCH from this session, with the version the form holds)
       const renamed = await page.evaluate(async ({ projectId, boreId }) => {
@@ -158,6 +169,11 @@ export const BORE_JOURNEYS: Journey[] = [
         await page.waitForTimeout(500);
       }
       check((CLEARANCE_STATUSES as readonly string[]).includes(status), `the water main crossed by the new bore has status "${status}", not a computed clearance status`);
+      // The least cover: ground − top of casing (cover measured to the pipe's top: common practice), worked by
+      // hand from the typed values: at 0+011 the ground is 127.075 and the casing top 125.5 + 0.35 / 2, so
+      // 1.40 m; at the ends 127.5 − 125.675 = 1.825 and 127.8 − 125.675 = 2.125, both more.
+      const leastCover = `Least cover 1.40 m at ${formatStation(11, style)} (minimum 0.75 m)`;
+      await page.getByText(leastCover).first().waitFor({ timeout: 30_000 });
       await page.screenshot({ path: `${shots}/bores-new-bore-plan.png`, fullPage: true });
 
       // delete it again: a confirm step, then it is gone (no decisions on its conflicts)

@@ -27,6 +27,7 @@ import type { PathErrors } from '../utils/validate';
 import { rowsToPoints } from '../utils/vertices';
 import { differingRows, StaleCompare } from './stale-compare';
 import { VertexList } from './vertex-list';
+import { VertexEditor } from '@/components/vertex-editor';
 
 /** Field names for the summary at the top of the form, by the first part of a problem's path. */
 const LABELS: Record<string, string> = {
@@ -42,12 +43,14 @@ const LABELS: Record<string, string> = {
   entryElevation: 'Entry elevation',
   exitElevation: 'Exit elevation',
   profile: 'Profile',
+  groundProfile: 'Ground profile',
   notes: 'Notes',
 };
 
 /** The fields the edit form sends, as text, for the side-by-side view after a 409. */
 function compareFields(mine: BoreFormValues, theirs: BoreFormValues) {
   const vertices = (v: BoreFormValues) => v.vertices.map((r) => `${r.e}, ${r.n}`).join('; ');
+  const ground = (v: BoreFormValues) => v.groundPoints.map((r) => `${r.station} ${r.elevation}`).join('; ');
   return [
     { label: 'Name', mine: mine.name, theirs: theirs.name },
     { label: 'Method', mine: BORE_METHOD_LABELS[mine.method], theirs: BORE_METHOD_LABELS[theirs.method] },
@@ -58,6 +61,7 @@ function compareFields(mine: BoreFormValues, theirs: BoreFormValues) {
     { label: 'Tolerance, line', mine: mine.toleranceHorizontal, theirs: theirs.toleranceHorizontal },
     { label: 'Tolerance, grade', mine: mine.toleranceVertical, theirs: theirs.toleranceVertical },
     { label: 'Minimum cover', mine: mine.minCover, theirs: theirs.minCover },
+    { label: 'Ground profile', mine: ground(mine), theirs: ground(theirs) },
     { label: 'Notes', mine: mine.notes, theirs: theirs.notes },
   ];
 }
@@ -151,10 +155,10 @@ export function ProjectFrame({ project }: { project: ProjectDto }) {
 }
 
 /**
- * Add a bore (name, method, begin station, alignment, casing, tolerances and a first casing
- * profile), or edit an existing bore's fields except its profiles (those are edited with live
- * clearances in Plan & profile). Checked with the shared schemas before it is sent; the server's
- * problems land on the same fields.
+ * Add a bore (name, method, begin station, alignment, casing, tolerances, a first casing profile
+ * and the ground profile), or edit an existing bore's fields except its casing profile (that is
+ * edited with live clearances in Plan & profile). Checked with the shared schemas before it is
+ * sent; the server's problems land on the same fields.
  */
 export function BoreForm({ project, bore, onDone, onCancel }: { project: ProjectDto; bore?: BoreDto; onDone: (saved: BoreDto) => void; onCancel: () => void }) {
   const style = project.stationStyle;
@@ -329,6 +333,27 @@ export function BoreForm({ project, bore, onDone, onCancel }: { project: Project
           <p className="text-xs text-ink-500">Shape the profile afterwards with every clearance recomputed as you drag, in Plan &amp; profile.</p>
         </FormSection>
       )}
+
+      <FormSection legend={`Ground profile (${unit}, ${project.verticalDatum})`}>
+        <VertexEditor
+          legend="Ground surface over the bore"
+          description={`Station (like ${formatStation(0, style)}) and ground elevation in ${unit} on ${project.verticalDatum}, in increasing station order: none, or two or more points. With it, Plan & profile shows the ground line and checks the minimum cover.`}
+          what="Ground point"
+          plural="ground points"
+          listName="ground profile"
+          columns={[
+            { key: 'station', name: 'station', placeholder: 'Station', inputMode: 'text' },
+            { key: 'elevation', name: 'elevation', labelSuffix: `(${unit}, ${project.verticalDatum})`, placeholder: `Elevation ${unit}` },
+          ]}
+          rows={values.groundPoints}
+          onChange={(rows) => set('groundPoints', rows)}
+          minRows={0}
+          cellError={(i, c) => errors[`groundProfile.${i}.${c === 0 ? 'station' : 'elevation'}`]}
+          rowError={(i) => errors[`groundProfile.${i}`]}
+          listError={errors.groundProfile}
+          parse={{ parseFirst: (text) => parseStation(text, style) }}
+        />
+      </FormSection>
 
       <TextAreaField label="Notes" error={err(errors, 'notes')} value={values.notes} onChange={(e) => set('notes', e.target.value)} />
 

@@ -26,6 +26,8 @@ export interface BoreFormValues {
   entryElevation: string;
   exitElevation: string;
   profilePoints: { station: string; elevation: string }[];
+  /** Ground surface over the bore, station–elevation rows (none, or two or more). */
+  groundPoints: { station: string; elevation: string }[];
 }
 
 export function emptyBoreValues(style: StationStyle): BoreFormValues {
@@ -50,6 +52,7 @@ export function emptyBoreValues(style: StationStyle): BoreFormValues {
       { station: '', elevation: '' },
       { station: '', elevation: '' },
     ],
+    groundPoints: [],
   };
 }
 
@@ -66,6 +69,7 @@ export function boreValues(bore: BoreDto, style: StationStyle): BoreFormValues {
     toleranceVertical: String(bore.toleranceVertical),
     minCover: String(bore.minCover),
     notes: bore.notes ?? '',
+    groundPoints: bore.groundProfile.map((p) => ({ station: formatStation(p.station, style), elevation: String(p.elevation) })),
   };
 }
 
@@ -104,6 +108,17 @@ function commonFields(values: BoreFormValues, style: StationStyle) {
   return { fields, errors, begin: begin.value, length };
 }
 
+/** The ground profile rows as schema points; a station the parser refuses is named on its row in `errors`. */
+function groundProfileOf(values: BoreFormValues, style: StationStyle, errors: PathErrors) {
+  // The schema takes one point, but one point gives a cover at one station only: ask for a line.
+  if (values.groundPoints.length === 1) errors.groundProfile = 'needs at least two points, or none';
+  return values.groundPoints.map((p, i) => {
+    const s = station(p.station, style);
+    if (s.error) errors[`groundProfile.${i}.station`] = s.error;
+    return { station: s.value ?? Number.NaN, elevation: numberOf(p.elevation) };
+  });
+}
+
 /** Merge the schema's problems with ours (ours win: they say more about the text typed). */
 function merge(schemaErrors: PathErrors | null, ours: PathErrors): PathErrors | null {
   const all = { ...(schemaErrors ?? {}), ...ours };
@@ -115,7 +130,7 @@ function merge(schemaErrors: PathErrors | null, ours: PathErrors): PathErrors | 
 /**
  * The create body from the form, checked with the shared create schema. In straight mode the
  * profile is two points: the entry elevation at the begin station and the exit elevation at the
- * end station (begin + the alignment's plan length). The ground profile starts empty.
+ * end station (begin + the alignment's plan length). The ground profile is the ground rows (may be none).
  */
 export function toBoreCreate(values: BoreFormValues, style: StationStyle): { input: BoreCreateInput; errors: null } | { input: null; errors: PathErrors } {
   const { fields, errors, begin, length } = commonFields(values, style);
@@ -133,7 +148,8 @@ export function toBoreCreate(values: BoreFormValues, style: StationStyle): { inp
       return { station: s.value ?? Number.NaN, elevation: numberOf(p.elevation) };
     });
   }
-  const result = validate(boreCreateSchema, { ...fields, profile, groundProfile: [] });
+  const groundProfile = groundProfileOf(values, style, errors);
+  const result = validate(boreCreateSchema, { ...fields, profile, groundProfile });
   let all = merge(result.errors, errors);
   if (all && values.profileMode === 'straight') {
     // Station problems of a straight profile come from the begin station or the alignment, already named there.
@@ -144,10 +160,14 @@ export function toBoreCreate(values: BoreFormValues, style: StationStyle): { inp
   return { input: result.data as BoreCreateInput, errors: null };
 }
 
-/** The PATCH body from the form (everything but the profiles, which Plan & profile edits), checked with the shared update schema. */
+/**
+ * The PATCH body from the form (everything but the casing profile, which Plan & profile edits, and
+ * with the ground profile as the rows now stand), checked with the shared update schema.
+ */
 export function toBoreUpdate(values: BoreFormValues, style: StationStyle, version: number): { input: BoreUpdateInput; errors: null } | { input: null; errors: PathErrors } {
   const { fields, errors } = commonFields(values, style);
-  const result = validate(boreUpdateSchema, { ...fields, version });
+  const groundProfile = groundProfileOf(values, style, errors);
+  const result = validate(boreUpdateSchema, { ...fields, groundProfile, version });
   const all = merge(result.errors, errors);
   if (all) return { input: null, errors: all };
   return { input: result.data as BoreUpdateInput, errors: null };
@@ -164,7 +184,7 @@ export function displayPath(path: string, mode: BoreFormValues['profileMode']): 
 
 /** Paths the form shows beside a field; any other server problem goes in the form's alert. */
 export const SHOWN_PATH =
-  /^(name|method|beginStation|alignment(\.\d+(\.[01])?)?|casingOd|carrierSize|toleranceHorizontal|toleranceVertical|minCover|notes|entryElevation|exitElevation|profile(\.\d+(\.(station|elevation))?)?)$/;
+  /^(name|method|beginStation|alignment(\.\d+(\.[01])?)?|casingOd|carrierSize|toleranceHorizontal|toleranceVertical|minCover|notes|entryElevation|exitElevation|(groundProfile|profile)(\.\d+(\.(station|elevation))?)?)$/;
 
 /**
  * When the alignment's stations no longer fall inside the casing profile's (the begin station or
