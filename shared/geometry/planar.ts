@@ -153,3 +153,15 @@ export function acuteAngleDeg(ux: number, uy: number, vx: number, vy: number): n
   const dot = Math.abs(ux * vx + uy * vy);
   return (Math.atan2(cross, dot) * 180) / Math.PI;
 }
+
+/** Plan distance from a point to a polyline (its nearest segment); Infinity for an empty path. */
+export function pointPolylineDistance(p: XY, path: readonly XY[]): number {
+  if (path.length === 1) return Math.hypot(p[0] - path[0]![0], p[1] - path[0]![1]);
+  let best = Infinity;
+  for (let i = 1; i < path.length; i++) {
+    const a = path[i - 1]!;
+    const b = path[i]!;
+    best = Math.min(best, projectOnSegment(a[0], a[1], b[0], b[1], p[0], p[1]).d2);
+  }
+  return Math.sqrt(best);
+}

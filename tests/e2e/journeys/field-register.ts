@@ -249,10 +249,18 @@ export const FIELD_REGISTER_JOURNEYS: Journey[] = [
         check((await page.getByRole('form', { name: 'Log a test hole' }).count()) === 1, 'a refused fix left the form');
         await page.screenshot({ path: join(shots, 'field-register-gps-refused-phone.png'), fullPage: true });
 
+        check((await page.getByText('This position is far from the project').count()) === 0, 'a fix on the storm drain was called far from the project');
+
+        // A good fix about 0.1° of latitude (some 11 km) north: the form says it is far from every line and bore.
+        await context.setGeolocation({ latitude: latitude + 0.1, longitude, accuracy: 2 });
+        await page.getByRole('button', { name: 'Try again' }).click();
+        await page.getByText('This position is far from the project').waitFor({ timeout: 10_000 });
+
         // 2 m is 6.6 US ft: accepted, stored with its accuracy and flagged approximate; the phone's height is not asked for.
         await context.setGeolocation({ latitude, longitude, accuracy: 2 });
         await page.getByRole('button', { name: 'Try again' }).click();
         await page.getByText('±6.6 US ft (limit ±16.0 US ft)').waitFor({ timeout: 10_000 });
+        await page.getByText('This position is far from the project').waitFor({ state: 'detached', timeout: 10_000 });
         await page.getByRole('button', { name: 'Save test hole' }).click();
         await page.getByRole('heading', { name: 'Test hole TH-92' }).waitFor({ timeout: 10_000 });
         const position = await page.getByLabel('Line and position').innerText();

@@ -4,7 +4,7 @@ import { useForm, type FieldErrors, type Resolver } from 'react-hook-form';
 import type { z } from 'zod';
 import type { BoreDto, HoleDto, LineDto, ProjectDto } from '@shared/api';
 import { LINE_KIND_LABELS, type Role } from '@shared/domain';
-import { pointAtStationOffset } from '@shared/geometry';
+import { pointAtStationOffset, pointPolylineDistance } from '@shared/geometry';
 import { NEW_LINE_STUB_HALF_METRES, holeCreateSchema, type HoleCreateInput, type HoleUpdateInput } from '@shared/schemas/hole';
 import { UNIT_SYMBOLS, convertLength } from '@shared/units';
 import { SafetyCautions } from '@/components/safety-cautions';
@@ -48,6 +48,9 @@ const errorMap: z.core.$ZodErrorMap = (issue) => {
 const schemaResolver = zodResolver(holeCreateSchema, { error: errorMap });
 
 /** Schema paths → form fields where the form shows a field under another name. */
+/** A phone fix farther than this from every line and bore is flagged (common practice: a test hole sits on a located line). */
+const FAR_FROM_PROJECT_METRES = 300;
+
 const FIELD_OF_PATH: Record<string, keyof HoleFormValues> = { lineId: 'lineChoice', newLine: 'lineChoice', 'newLine.label': 'newLineLabel', station: 'stationText' };
 
 type Mode = { kind: 'create' } | { kind: 'edit'; hole: HoleDto };
@@ -204,6 +207,14 @@ export function HoleForm({ project, role, userName, lines, bores, holes, mode, o
   }
 
   const gpsFix = gps.state.phase === 'idle' ? null : gps.state.best;
+  // A phone fix far from every line and bore of the project is not at a hole of this project
+  // (a stale fix, a phone left in the truck, the wrong project open): say so before it is saved.
+  const farFromProject = useMemo(() => {
+    if (!gpsFix) return null;
+    const here = [gpsFix.easting, gpsFix.northing] as const;
+    const nearest = Math.min(...lines.map((l) => pointPolylineDistance(here, l.path)), ...bores.map((b) => pointPolylineDistance(here, b.alignment)));
+    return Number.isFinite(nearest) && nearest > convertLength(FAR_FROM_PROJECT_METRES, 'm', project.unit) ? nearest : null;
+  }, [gpsFix, lines, bores, project.unit]);
   const useFix = () => {
     gps.start(project.settings.maxGpsAccuracy / 2);
   };
@@ -491,6 +502,14 @@ export function HoleForm({ project, role, userName, lines, bores, holes, mode, o
               )}
             </div>
             {gps.state.phase === 'error' && <Alert tone="danger">{gps.state.message}</Alert>}
+            {farFromProject != null && (
+              <Alert tone="caution" title="This position is far from the project">
+                <p>
+                  It is {formatLength(farFromProject, project.unit, 0)} from the nearest line or bore of {project.name}. Check that the phone is at the hole and
+                  that this is the right project before saving; or enter the position by grid or station.
+                </p>
+              </Alert>
+            )}
             {gpsFix && (
               <dl className="grid grid-cols-[max-content_1fr] gap-x-3 gap-y-1 text-sm">
                 <dt className="text-ink-600">Easting</dt>
