@@ -6,6 +6,9 @@ import { Bore } from '../modules/bores/bore.entity';
 import { Pit } from '../modules/bores/pit.entity';
 import { Photo } from '../modules/holes/photo.entity';
 import { storeJpeg } from '../modules/holes/photo-files';
+import { ActivityEntry } from '../modules/activity/activity-entry.entity';
+import { diff } from '../modules/activity/activity.service';
+import { presentHole } from '../modules/holes/hole.presenter';
 import { TestHole } from '../modules/holes/test-hole.entity';
 import { UtilityLine } from '../modules/lines/utility-line.entity';
 import { ProjectMember } from '../modules/projects/project-member.entity';
@@ -99,6 +102,7 @@ async function seedScenario(em: EntityManager, storage: FileStorage, s: DemoScen
     hole.createdBy = users.get(createdByEmail) ?? null;
     em.persist(hole);
     await em.flush();
+    demoHistory(em, project, hole, s, users);
     if (withPhotos) {
       for (const p of photos ?? []) {
         const jpeg = await makeDemoPhoto({ holeNumber: h.number, lineKind: line.kind, caption: p.caption, kind: p.kind, seed: photoSeed++ });
@@ -113,4 +117,28 @@ async function seedScenario(em: EntityManager, storage: FileStorage, s: DemoScen
   }
   await em.flush();
   return project;
+}
+
+/**
+ * The demo's holes carry the history their status implies, as the routes would have written it:
+ * logged by their crew when dug, tied in by the project's surveyor a day later, accepted by its
+ * design engineer two days later. Without it the Activity page is empty and the test-hole sheets
+ * of reviewed holes name no reviewer.
+ */
+function demoHistory(em: EntityManager, project: Project, hole: TestHole, s: DemoScenario, users: Map<string, User>): void {
+  const member = (role: string) => s.members.map((e) => users.get(e)).find((u) => u?.role === role) ?? null;
+  const at = (hole.dugAt ?? new Date()).getTime();
+  const entry = (user: User | null, action: string, before: object | null, after: object | null, hours: number) => {
+    const e = new ActivityEntry({ project, user, entity: 'hole', entityId: hole.id, action, changes: diff(before, after) });
+    e.createdAt = new Date(at + hours * 3_600_000);
+    em.persist(e);
+  };
+  const now = presentHole(hole, 0);
+  entry(hole.createdBy, 'create', null, { ...now, status: hole.status === 'planned' ? 'planned' : 'dug', surveyedTopElevation: null, surveyedGroundElevation: null, surveyedEasting: null, surveyedNorthing: null }, 0.25);
+  const surveyed = hole.surveyedTopElevation != null || hole.surveyedGroundElevation != null;
+  if (surveyed) {
+    const survey = { surveyedEasting: hole.surveyedEasting ?? null, surveyedNorthing: hole.surveyedNorthing ?? null, surveyedTopElevation: hole.surveyedTopElevation ?? null, surveyedGroundElevation: hole.surveyedGroundElevation ?? null };
+    entry(member('surveyor'), 'survey', { status: 'dug', surveyedEasting: null, surveyedNorthing: null, surveyedTopElevation: null, surveyedGroundElevation: null }, { status: 'surveyed', ...survey }, 24);
+  }
+  if (hole.status === 'reviewed') entry(member('designer'), 'accept', { status: surveyed ? 'surveyed' : 'dug' }, { status: 'reviewed' }, 48);
 }

@@ -7,6 +7,7 @@ import { MemoryStorage } from '@server/storage/storage';
 import { storeJpeg, THUMBNAIL_SIZE } from '@server/modules/holes/photo-files';
 import { DEMO_SCENARIOS, DEMO_USERS } from '../../seeds/demo';
 import { makeDemoPhoto } from '../../seeds/photos';
+import { ActivityEntry, TestHole } from '@server/entities';
 import { tableCounts } from './helpers';
 
 let orm: MikroORM;
@@ -26,6 +27,19 @@ describe('demo seeder', () => {
     expect(counts.utility_lines).toBe(DEMO_SCENARIOS.reduce((n, s) => n + s.lines.length, 0));
     expect(counts.test_holes).toBe(DEMO_SCENARIOS.reduce((n, s) => n + s.holes.length, 0));
     expect(counts.pits).toBe(DEMO_SCENARIOS.reduce((n, s) => n + s.bores.reduce((m, b) => m + b.pits.length, 0), 0));
+  });
+
+  it('then each demo hole has the history its status implies: logged by its crew, tied in, accepted by a design engineer', async () => {
+    const em = orm.em.fork();
+    const holes = await em.find(TestHole, {}, { populate: ['createdBy'] });
+    const entries = await em.find(ActivityEntry, { entity: 'hole' }, { populate: ['user'] });
+    const of = (id: number, action: string) => entries.filter((e) => e.entityId === id && e.action === action);
+    for (const h of holes) {
+      expect(of(h.id, 'create').map((e) => e.user?.id ?? null)).toEqual([h.createdBy?.id ?? null]);
+      expect(of(h.id, 'accept').map((e) => e.user?.role)).toEqual(h.status === 'reviewed' ? ['designer'] : []);
+      expect(of(h.id, 'survey').map((e) => e.user?.role)).toEqual(h.surveyedTopElevation != null || h.surveyedGroundElevation != null ? ['surveyor'] : []);
+    }
+    expect(holes.some((h) => h.status === 'reviewed')).toBe(true);
   });
 
   it('when run a second time, then nothing changes (idempotent)', async () => {
