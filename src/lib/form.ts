@@ -9,7 +9,7 @@ import { isApiError } from './api-client';
  */
 
 /** Messages for the cases the shared schemas leave to zod's defaults (empty or non-numeric input). */
-const formErrorMap: z.core.$ZodErrorMap = (issue) => {
+export const formErrorMap: z.core.$ZodErrorMap = (issue) => {
   if (issue.code === 'invalid_type') {
     if (issue.input === undefined || issue.input === null || issue.input === '') return 'is required';
     if (issue.expected === 'number') return 'must be a number, with a point for decimals (2.5) and no thousands separators';

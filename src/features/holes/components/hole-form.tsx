@@ -1,7 +1,6 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm, type FieldErrors, type Resolver } from 'react-hook-form';
-import type { z } from 'zod';
 import type { BoreDto, HoleDto, LineDto, ProjectDto } from '@shared/api';
 import { LINE_KIND_LABELS, type Role } from '@shared/domain';
 import { pointAtStationOffset, pointPolylineDistance } from '@shared/geometry';
@@ -12,7 +11,7 @@ import { Alert, ProblemAlert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextAreaField, TextField } from '@/components/ui/field';
 import { isApiError } from '@/lib/api-client';
-import { asNumberOrNull, fieldMessage } from '@/lib/form';
+import { asNumberOrNull, fieldMessage, formErrorMap } from '@/lib/form';
 import { formatCoordinate, formatDateTime, formatLength, formatSize } from '@/lib/format';
 import { keepHole } from '@/features/outbox/outbox-store';
 import { useCreateHole } from '../api/create-hole';
@@ -35,17 +34,7 @@ import { nextHoleNumber } from '../utils/next-number';
 import { FormSection, MeasureField, SegmentedChoice } from './form-controls';
 import { StaleChoice, type StaleRow } from './stale-choice';
 
-/** Plain-language messages where the shared schemas leave zod's defaults. */
-const errorMap: z.core.$ZodErrorMap = (issue) => {
-  if (issue.code === 'invalid_type') {
-    if (issue.input === undefined || issue.input === null || issue.input === '') return 'is required';
-    if (issue.expected === 'number') return 'must be a number';
-  }
-  if (issue.code === 'invalid_value') return 'choose one of the listed options';
-  return undefined;
-};
-
-const schemaResolver = zodResolver(holeCreateSchema, { error: errorMap });
+const schemaResolver = zodResolver(holeCreateSchema, { error: formErrorMap });
 
 /** Schema paths → form fields where the form shows a field under another name. */
 /** A phone fix farther than this from every line and bore is flagged (common practice: a test hole sits on a located line). */
