@@ -23,22 +23,8 @@ export interface PairColumn<K extends string> {
  * and column. The paste box (`parsePairs`) replaces the rows or adds to their end, and takes
  * nothing from a paste with a bad line, naming each such line by number.
  */
-export function VertexEditor<K extends string>({
-  legend,
-  description,
-  what,
-  plural,
-  listName,
-  columns,
-  rows,
-  onChange,
-  onBlur,
-  minRows,
-  cellError,
-  rowError,
-  listError,
-  parse,
-}: {
+/** The vertex editor's props (see VertexEditor). */
+export interface VertexEditorProps<K extends string> {
   /** The fieldset's legend. */
   legend: ReactNode;
   /** A line under the legend (frame, units, order). */
@@ -49,6 +35,8 @@ export function VertexEditor<K extends string>({
   plural: string;
   /** "alignment", "path", "ground profile": in "Replace the … with these" and the list's messages. */
   listName: string;
+  /** Names the list in its own problem ("Plan path needs …"); by default `listName`, capitalised. */
+  listLabel?: string;
   columns: readonly [PairColumn<K>, PairColumn<K>];
   rows: Record<K, string>[];
   onChange: (rows: Record<K, string>[]) => void;
@@ -62,7 +50,25 @@ export function VertexEditor<K extends string>({
   listError?: string;
   /** How a pasted line's values are read: their names, and a reader for the first (a station). */
   parse?: PairParseOptions;
-}) {
+}
+
+export function VertexEditor<K extends string>({
+  legend,
+  description,
+  what,
+  plural,
+  listName,
+  listLabel,
+  columns,
+  rows,
+  onChange,
+  onBlur,
+  minRows,
+  cellError,
+  rowError,
+  listError,
+  parse,
+}: VertexEditorProps<K>) {
   const id = useId();
   const [first, second] = columns;
   const [pasteOpen, setPasteOpen] = useState(false);
@@ -144,7 +150,7 @@ export function VertexEditor<K extends string>({
       )}
       {listError && (
         <p id={`${id}-error`} className="text-sm text-danger-700">
-          {fieldMessage(listName.charAt(0).toUpperCase() + listName.slice(1), listError)}
+          {fieldMessage(listLabel ?? listName.charAt(0).toUpperCase() + listName.slice(1), listError)}
         </p>
       )}
       <div className="flex flex-wrap gap-2">
@@ -195,5 +201,26 @@ export function VertexEditor<K extends string>({
         </div>
       )}
     </fieldset>
+  );
+}
+
+/** Grid easting and northing columns (rows `{ e, n }`), for alignments, plan paths and pit footprints. */
+export const EN_COLUMNS: readonly [PairColumn<'e' | 'n'>, PairColumn<'e' | 'n'>] = [
+  { key: 'e', name: 'easting', placeholder: 'E' },
+  { key: 'n', name: 'northing', placeholder: 'N' },
+];
+
+/** The vertex editor for grid E/N rows, its legend naming the list, the axes and the unit: "Alignment (easting, northing in m)". */
+export function GridVertexEditor({ name, unit, ...props }: Omit<VertexEditorProps<'e' | 'n'>, 'columns' | 'legend'> & { name: string; unit: string }) {
+  return (
+    <VertexEditor
+      {...props}
+      columns={EN_COLUMNS}
+      legend={
+        <>
+          {name} <span className="font-normal text-ink-500">(easting, northing in {unit})</span>
+        </>
+      }
+    />
   );
 }

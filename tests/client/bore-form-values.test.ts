@@ -1,54 +1,17 @@
 /**
- * The Bores tab's form logic: pasted vertex lists, and the form's values turned into the create
+ * The Bores tab's form logic: the form's values turned into the create
  * and update bodies the shared schemas (`shared/schemas/bore.ts`, the server's contract) accept.
  *
- * Outside references: the spreadsheet paste is produced by papaparse's `unparse` with a tab
- * delimiter (the text/tab-separated-values form spreadsheets put on the clipboard, IANA media type
- * registration); plan lengths use the 3-4-5 right triangle (Pythagoras, a worked example);
+ * (Pasted vertex and profile lists: tests/client/parse-pairs.test.ts.)
+ *
+ * Outside references: plan lengths use the 3-4-5 right triangle (Pythagoras, a worked example);
  * stations are read with the shared station parser, whose own tests check it against published
  * station notation; every body is re-checked with the shared zod schema itself.
  */
-import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
 import { boreCreateSchema, boreUpdateSchema } from '@shared/schemas/bore';
 import type { BoreDto } from '@shared/api';
 import { boreValues, displayPath, emptyBoreValues, profileCoverageWarning, SHOWN_PATH, toBoreCreate, toBoreUpdate, type BoreFormValues } from '@/features/bores/utils/bore-form-values';
-import { parseVertexText } from '@/features/bores/utils/vertices';
-
-describe('parseVertexText', () => {
-  it('reads a tab-separated spreadsheet copy with a header row', () => {
-    const text = Papa.unparse(
-      [
-        ['Easting', 'Northing'],
-        [645794.12, 3243453.24],
-        [645816.12, 3243453.24],
-      ],
-      { delimiter: '\t' },
-    );
-    expect(parseVertexText(text)).toEqual({
-      rows: [
-        { e: '645794.12', n: '3243453.24' },
-        { e: '645816.12', n: '3243453.24' },
-      ],
-      problems: [],
-    });
-  });
-
-  it('reads "E, N" and "E N" lines (CAD point lists), with blank lines and CRLF', () => {
-    const { rows, problems } = parseVertexText('1000.5, 2000.25\r\n\r\n1003.5   2004.25\n-12 7e2\n');
-    expect(problems).toEqual([]);
-    expect(rows).toEqual([
-      { e: '1000.5', n: '2000.25' },
-      { e: '1003.5', n: '2004.25' },
-      { e: '-12', n: '7e2' },
-    ]);
-  });
-
-  it('names each line that is not two numbers, by its line number', () => {
-    const { problems } = parseVertexText('1000, 2000\n1003 north\n1, 2, 3\n1,5 2,5');
-    expect(problems.map((p) => p.line)).toEqual([2, 3, 4]);
-  });
-});
 
 /** A filled-in new bore: a 3-4-5 alignment from (1000, 2000), begin station 1+000 (1000-unit stations). */
 function filled(overrides: Partial<BoreFormValues> = {}): BoreFormValues {

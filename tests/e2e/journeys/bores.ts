@@ -65,8 +65,8 @@ export const BORE_JOURNEYS: Journey[] = [
       // a pasted list with a line that is not two numbers is refused and the line named
       await form.getByRole('button', { name: 'Paste vertices' }).click();
       await form.getByLabel('Pasted vertices').fill(`Easting, Northing\n${west.e}, ${west.n}\n${east.e} north`);
-      await form.getByRole('button', { name: 'Use pasted vertices' }).click();
-      await form.getByText(`line 3:`).waitFor({ timeout: 10_000 });
+      await form.getByRole('button', { name: 'Replace the alignment with these' }).click();
+      await form.getByRole('list', { name: 'Pasted lines not read' }).getByText('Line 3: “north” is not a number').waitFor({ timeout: 10_000 });
       await form.getByRole('button', { name: 'Paste vertices' }).click(); // close the paste box
 
       await form.getByLabel('Name', { exact: true }).fill(BORE_NAME);

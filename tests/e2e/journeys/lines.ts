@@ -55,10 +55,11 @@ export const LINE_JOURNEYS: Journey[] = [
       await form.getByLabel('Material').fill('HDPE duct');
       await form.getByLabel('Record depth to top').fill('3.5');
       // A bad pasted line is reported by its number and nothing is taken.
-      await form.getByLabel('Paste vertices').fill(`${VERTICES[0]}\n\n2432600, north`);
+      await form.getByRole('button', { name: 'Paste vertices' }).click();
+      await form.getByLabel('Pasted vertices').fill(`${VERTICES[0]}\n\n2432600, north`);
       await form.getByRole('button', { name: 'Replace the path with these' }).click();
       await form.getByRole('list', { name: 'Pasted lines not read' }).getByText('Line 3: “north” is not a number').waitFor();
-      await form.getByLabel('Paste vertices').fill(VERTICES.join('\n'));
+      await form.getByLabel('Pasted vertices').fill(VERTICES.join('\n'));
       await form.getByRole('button', { name: 'Replace the path with these' }).click();
       check((await form.getByLabel('Vertex 2 northing').inputValue()) === '13653520', 'the pasted vertices did not fill the path');
       await noSidewaysScroll(page, 'the add-line form');

@@ -5,7 +5,6 @@ import { formatStation, parseStation } from '@shared/geometry';
 import type { StationStyle } from '@shared/domain';
 import { UNIT_SYMBOLS } from '@shared/units';
 import { Alert, ProblemAlert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
 import { NumberField, SelectField, SelectOptions, TextAreaField, TextField } from '@/components/ui/field';
 import { FormActions, FormSection } from '@/components/ui/form';
 import { isApiError } from '@/lib/api-client';
@@ -18,16 +17,15 @@ import {
   displayPath,
   emptyBoreValues,
   profileCoverageWarning,
+  rowsToPoints,
   SHOWN_PATH,
   toBoreCreate,
   toBoreUpdate,
   type BoreFormValues,
 } from '../utils/bore-form-values';
-import type { PathErrors } from '../utils/validate';
-import { rowsToPoints } from '../utils/vertices';
+import { pairErrors, type PathErrors } from '../utils/validate';
 import { differingRows, StaleCompare } from './stale-compare';
-import { VertexList } from './vertex-list';
-import { VertexEditor } from '@/components/vertex-editor';
+import { GridVertexEditor, VertexEditor, type PairColumn, type VertexEditorProps } from '@/components/vertex-editor';
 
 /** Field names for the summary at the top of the form, by the first part of a problem's path. */
 const LABELS: Record<string, string> = {
@@ -66,72 +64,24 @@ function compareFields(mine: BoreFormValues, theirs: BoreFormValues) {
   ];
 }
 
-/** Station–elevation rows of a profile typed point by point. */
-function ProfilePointRows({
-  values,
-  onChange,
+type ProfileRow = BoreFormValues['profilePoints'][number];
+
+/**
+ * Station–elevation rows of a profile (casing or ground) in the shared vertex editor: stations
+ * typed in the project's style and read by the shared station parser, also when pasted.
+ */
+function ProfileRows({
+  project,
+  path,
   errors,
-  unit,
-  datum,
-}: {
-  values: BoreFormValues;
-  onChange: (rows: BoreFormValues['profilePoints']) => void;
-  errors: PathErrors;
-  unit: string;
-  datum: string;
-}) {
-  const rows = values.profilePoints;
-  const set = (i: number, key: 'station' | 'elevation', value: string) => onChange(rows.map((r, j) => (j === i ? { ...r, [key]: value } : r)));
-  const input = 'min-h-11 w-full min-w-0 rounded-md border bg-white px-2 text-base tabular sm:text-sm';
-  return (
-    <div className="space-y-2">
-      <ol className="space-y-2">
-        {rows.map((row, i) => {
-          const sError = errors[`profile.${i}.station`];
-          const eError = errors[`profile.${i}.elevation`];
-          return (
-            <li key={i} className="space-y-1">
-              <div className="grid grid-cols-[2rem_minmax(0,1fr)_minmax(0,1fr)_auto] items-center gap-2">
-                <span className="text-sm text-ink-600 tabular">{i + 1}</span>
-                <input
-                  aria-label={`Profile point ${i + 1} station`}
-                  placeholder="Station"
-                  autoComplete="off"
-                  spellCheck={false}
-                  value={row.station}
-                  aria-invalid={sError ? true : undefined}
-                  onChange={(e) => set(i, 'station', e.target.value)}
-                  className={`${input} ${sError ? 'border-danger-600' : 'border-ink-300'}`}
-                />
-                <input
-                  aria-label={`Profile point ${i + 1} elevation (${unit}, ${datum})`}
-                  placeholder={`Elevation ${unit}`}
-                  inputMode="decimal"
-                  autoComplete="off"
-                  value={row.elevation}
-                  aria-invalid={eError ? true : undefined}
-                  onChange={(e) => set(i, 'elevation', e.target.value)}
-                  className={`${input} ${eError ? 'border-danger-600' : 'border-ink-300'}`}
-                />
-                <Button variant="secondary" size="sm" aria-label={`Remove profile point ${i + 1}`} disabled={rows.length <= 2} onClick={() => onChange(rows.filter((_, j) => j !== i))}>
-                  ✕
-                </Button>
-              </div>
-              {(sError || eError) && (
-                <p className="pl-10 text-sm text-danger-700">
-                  {[sError && fieldMessage(`Point ${i + 1} station`, sError), eError && fieldMessage(`Point ${i + 1} elevation`, eError)].filter(Boolean).join('; ')}
-                </p>
-              )}
-            </li>
-          );
-        })}
-      </ol>
-      {errors.profile && <p className="text-sm text-danger-700">{fieldMessage('Profile', errors.profile)}</p>}
-      <Button variant="secondary" size="sm" onClick={() => onChange([...rows, { station: '', elevation: '' }])}>
-        Add profile point
-      </Button>
-    </div>
-  );
+  ...props
+}: Omit<VertexEditorProps<keyof ProfileRow>, 'columns' | 'parse' | 'cellError' | 'rowError' | 'listError'> & { project: ProjectDto; path: string; errors: PathErrors }) {
+  const unit = UNIT_SYMBOLS[project.unit];
+  const columns: readonly [PairColumn<keyof ProfileRow>, PairColumn<keyof ProfileRow>] = [
+    { key: 'station', name: 'station', placeholder: 'Station', inputMode: 'text' },
+    { key: 'elevation', name: 'elevation', labelSuffix: `(${unit}, ${project.verticalDatum})`, placeholder: `Elevation ${unit}` },
+  ];
+  return <VertexEditor {...props} columns={columns} parse={{ parseFirst: (text) => parseStation(text, project.stationStyle) }} {...pairErrors(errors, path, ['station', 'elevation'])} />;
 }
 
 function stationOrNull(text: string, style: StationStyle): number | null {
@@ -254,7 +204,17 @@ export function BoreForm({ project, bore, onDone, onCancel }: { project: Project
           value={values.beginStation}
           onChange={(e) => set('beginStation', e.target.value)}
         />
-        <VertexList legend="Alignment" what="Vertex" plural="vertices" path="alignment" rows={values.vertices} onChange={(rows) => set('vertices', rows)} errors={errors} unit={unit} minRows={2} />
+        <GridVertexEditor
+          name="Alignment"
+          unit={unit}
+          what="Vertex"
+          plural="vertices"
+          listName="alignment"
+          rows={values.vertices}
+          onChange={(rows) => set('vertices', rows)}
+          minRows={2}
+          {...pairErrors(errors, 'alignment')}
+        />
         {planLength != null && planLength > 0 && (
           <p className="text-sm text-ink-700" data-testid="bore-form-length">
             Plan length {formatLength(planLength, project.unit)}; stations{' '}
@@ -328,30 +288,37 @@ export function BoreForm({ project, bore, onDone, onCancel }: { project: Project
               />
             </div>
           ) : (
-            <ProfilePointRows values={values} onChange={(rows) => set('profilePoints', rows)} errors={errors} unit={unit} datum={project.verticalDatum} />
+            <ProfileRows
+              project={project}
+              path="profile"
+              errors={errors}
+              legend="Profile points"
+              description={`Station (like ${formatStation(0, style)}) and casing centreline elevation, in increasing station order.`}
+              what="Profile point"
+              plural="profile points"
+              listName="profile"
+              rows={values.profilePoints}
+              onChange={(rows) => set('profilePoints', rows)}
+              minRows={2}
+            />
           )}
           <p className="text-xs text-ink-500">Shape the profile afterwards with every clearance recomputed as you drag, in Plan &amp; profile.</p>
         </FormSection>
       )}
 
       <FormSection legend={`Ground profile (${unit}, ${project.verticalDatum})`}>
-        <VertexEditor
+        <ProfileRows
+          project={project}
+          path="groundProfile"
+          errors={errors}
           legend="Ground surface over the bore"
           description={`Station (like ${formatStation(0, style)}) and ground elevation in ${unit} on ${project.verticalDatum}, in increasing station order: none, or two or more points. With it, Plan & profile shows the ground line and checks the minimum cover.`}
           what="Ground point"
           plural="ground points"
           listName="ground profile"
-          columns={[
-            { key: 'station', name: 'station', placeholder: 'Station', inputMode: 'text' },
-            { key: 'elevation', name: 'elevation', labelSuffix: `(${unit}, ${project.verticalDatum})`, placeholder: `Elevation ${unit}` },
-          ]}
           rows={values.groundPoints}
           onChange={(rows) => set('groundPoints', rows)}
           minRows={0}
-          cellError={(i, c) => errors[`groundProfile.${i}.${c === 0 ? 'station' : 'elevation'}`]}
-          rowError={(i) => errors[`groundProfile.${i}`]}
-          listError={errors.groundProfile}
-          parse={{ parseFirst: (text) => parseStation(text, style) }}
         />
       </FormSection>
 

@@ -10,12 +10,12 @@ import { isApiError } from '@/lib/api-client';
 import { fieldMessage } from '@/lib/form';
 import { useCreatePit } from '../api/create-pit';
 import { useUpdatePit } from '../api/update-pit';
-import { validate, type PathErrors } from '../utils/validate';
-import { numberOf, pointsToRows, rowsToPoints, type VertexRow } from '../utils/vertices';
+import { validate, type PathErrors, pairErrors } from '../utils/validate';
+import { numberOf, pointsToRows, rowsToPoints, type VertexRow } from '../utils/bore-form-values';
 import { ProjectFrame } from './bore-form';
 import { PIT_LABELS } from './bore-list';
 import { differingRows, StaleCompare } from './stale-compare';
-import { VertexList } from './vertex-list';
+import { GridVertexEditor } from '@/components/vertex-editor';
 
 const PIT_KIND_LABELS: Record<PitKind, string> = PIT_LABELS;
 
@@ -142,7 +142,17 @@ export function PitForm({
           onChange={(e) => set('bottomElevation', e.target.value)}
         />
       </div>
-      <VertexList legend="Footprint" what="Corner" plural="corners" path="footprint" rows={values.corners} onChange={(rows) => set('corners', rows)} errors={errors} unit={unit} minRows={3} />
+      <GridVertexEditor
+        name="Footprint"
+        unit={unit}
+        what="Corner"
+        plural="corners"
+        listName="footprint"
+        rows={values.corners}
+        onChange={(rows) => set('corners', rows)}
+        minRows={3}
+        {...pairErrors(errors, 'footprint')}
+      />
       <p className="text-xs text-ink-500">Corners in order around the pit; the last joins the first.</p>
       <TextAreaField label="Notes" error={errors.notes ? { message: errors.notes } : undefined} value={values.notes} onChange={(e) => set('notes', e.target.value)} />
       {theirs && pit && (

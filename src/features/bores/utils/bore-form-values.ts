@@ -3,8 +3,29 @@ import type { BoreMethod, StationStyle } from '@shared/domain';
 import { formatStation, parseStation } from '@shared/geometry';
 import { boreCreateSchema, boreUpdateSchema, type BoreCreateInput, type BoreUpdateInput } from '@shared/schemas/bore';
 import { polylineLength } from '@/lib/format';
-import { numberOf, pointsToRows, rowsToPoints, type VertexRow } from './vertices';
+import { plainNumber } from '@/lib/parse-pairs';
 import { validate, type PathErrors } from './validate';
+
+/** One grid vertex row of a form (alignment, pit footprint), as typed. */
+export interface VertexRow {
+  e: string;
+  n: string;
+}
+
+/** A typed number: empty → undefined (the schema says "is required"), unreadable → NaN (it says "must be a number"). */
+export function numberOf(text: string): number | undefined {
+  return text.trim() === '' ? undefined : plainNumber(text);
+}
+
+/** The form's rows as grid points for the schema (row i is point i, so a problem names its row). */
+export function rowsToPoints(rows: VertexRow[]): [number | undefined, number | undefined][] {
+  return rows.map((r) => [numberOf(r.e), numberOf(r.n)]);
+}
+
+/** Grid points as form rows. */
+export function pointsToRows(points: readonly (readonly [number, number])[]): VertexRow[] {
+  return points.map(([e, n]) => ({ e: String(e), n: String(n) }));
+}
 
 /**
  * The bore form's values as typed: the shared schema's fields as text, the begin station in the

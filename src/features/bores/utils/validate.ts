@@ -27,3 +27,15 @@ export function validate<S extends z.ZodType>(schema: S, input: unknown): { data
   }
   return { data: null, errors };
 }
+
+/**
+ * The problems of one list of pairs for the shared vertex editor, from the flat paths: `path.i.0`
+ * or `path.i.station` for a cell (by `keys`), `path.i` for a row, `path` for the list.
+ */
+export function pairErrors(errors: PathErrors, path: string, keys: readonly [string, string] = ['0', '1']) {
+  return {
+    cellError: (i: number, column: 0 | 1) => errors[`${path}.${i}.${keys[column]}`],
+    rowError: (i: number) => errors[`${path}.${i}`],
+    listError: errors[path],
+  };
+}

@@ -2,10 +2,12 @@ import { useRef, useState } from 'react';
 import { useController } from 'react-hook-form';
 import type { z } from 'zod';
 import type { LineDto, ProjectDto } from '@shared/api';
+import type { GridPoint } from '@shared/schemas/common';
 import { LINE_KINDS, LINE_SHAPES, LINE_STATUSES, QUALITY_LEVELS, UNIT_LABELS, type LineShape } from '@shared/domain';
 import { lineCreateSchema } from '@shared/schemas/line';
 import { UNIT_SYMBOLS } from '@shared/units';
 import { KindSwatch } from '@/components/kind-swatch';
+import { EN_COLUMNS, VertexEditor } from '@/components/vertex-editor';
 import { QUALITY_LEVEL_MEANINGS, QualityLevelBadge } from '@/components/quality-level';
 import { Alert, ProblemAlert } from '@/components/ui/alert';
 import { NumberField, SelectField, SelectOptions, TextAreaField, TextField } from '@/components/ui/field';
@@ -14,7 +16,6 @@ import { asNumberOrNull, asNumberOrUndefined, asTextOrNull, fieldMessage, useZod
 import { useCreateLine } from '../api/create-line';
 import { useUpdateLine } from '../api/update-line';
 import { LINE_STATUS_LABELS } from './lines-table';
-import { PathEditor, type PathErrors } from './path-editor';
 
 type Values = z.input<typeof lineCreateSchema>;
 
@@ -273,7 +274,7 @@ export function LineForm({ project, line, onDone, onCancel }: { project: Project
       </FormSection>
 
       <FormSection legend={`Plan path (${project.crsCode}, ${unit})`}>
-        <PathEditor
+        <PlanPath
           key={pathKey}
           value={path.field.value}
           onChange={path.field.onChange}
@@ -293,5 +294,66 @@ export function LineForm({ project, line, onDone, onCancel }: { project: Project
         onCancel={onCancel}
       />
     </form>
+  );
+}
+
+type Row = { e: string; n: string };
+type Msg = { message?: string } | undefined;
+/** What react-hook-form reports for `path`: a message for the whole list, or per vertex and coordinate. */
+type PathErrors = (Msg & { [index: number]: (Msg & { 0?: Msg; 1?: Msg }) | undefined }) | undefined;
+
+const toText = (v: number | null | undefined) => (v == null || Number.isNaN(v) ? '' : String(v));
+/** A vertex as the schema reads it: blank → null ("is required"), bad text → NaN ("must be a number"). */
+const pointOf = (r: Row) => [asNumberOrNull(r.e), asNumberOrNull(r.n)] as unknown as GridPoint;
+
+/**
+ * The plan path as grid E/N vertices in the project's unit, in the shared vertex editor (rows to
+ * type into, a paste box that replaces the path or extends it at its end). The rows keep the text
+ * typed; every change hands the whole path to the form, whose schema checks it.
+ */
+function PlanPath({
+  value,
+  onChange,
+  onBlur,
+  errors,
+  unitSymbol,
+  crsCode,
+}: {
+  value: readonly (readonly (number | null)[])[] | undefined;
+  onChange: (path: GridPoint[]) => void;
+  onBlur: () => void;
+  errors: PathErrors;
+  unitSymbol: string;
+  crsCode: string;
+}) {
+  const [rows, setRows] = useState<Row[]>(() => {
+    const initial = (value ?? []).map((p) => ({ e: toText(p[0]), n: toText(p[1]) }));
+    while (initial.length < 2) initial.push({ e: '', n: '' });
+    return initial;
+  });
+  return (
+    <VertexEditor
+      legend={
+        <>
+          Plan path<span className="text-danger-600" aria-hidden title="Required"> *</span>
+        </>
+      }
+      description={`Grid easting and northing of each vertex in ${crsCode}, in ${unitSymbol}, in order along the line (at least two).`}
+      what="Vertex"
+      plural="vertices"
+      listName="path"
+      listLabel="Plan path"
+      columns={EN_COLUMNS}
+      rows={rows}
+      onChange={(next) => {
+        setRows(next);
+        onChange(next.map(pointOf));
+      }}
+      onBlur={onBlur}
+      minRows={2}
+      cellError={(i, c) => errors?.[i]?.[c]?.message}
+      rowError={(i) => errors?.[i]?.message}
+      listError={errors?.message}
+    />
   );
 }
