@@ -1,14 +1,5 @@
 import type { z } from 'zod';
-
-/** Messages for what the shared schemas leave to zod's defaults (empty or unreadable numbers). */
-const errorMap: z.core.$ZodErrorMap = (issue) => {
-  if (issue.code === 'invalid_type') {
-    if (issue.input === undefined || issue.input === null || issue.input === '') return 'is required';
-    if (issue.expected === 'number') return 'must be a number';
-  }
-  if (issue.code === 'invalid_value') return 'choose one of the listed options';
-  return undefined;
-};
+import { formErrorMap as errorMap } from '@/lib/form';
 
 /** Problems by dotted path ("alignment.1.0"), as the server's 400 `errors[].path` names them. */
 export type PathErrors = Record<string, string>;
