@@ -1,4 +1,5 @@
 import { Alert } from '@/components/ui/alert';
+import { CompareTable } from '@/components/ui/compare-table';
 import { Button } from '@/components/ui/button';
 
 export interface CompareRow {
@@ -19,35 +20,17 @@ export function StaleCompare({ what, rows, onTakeTheirs }: { what: string; rows:
         <p>Nothing of yours is saved yet. Compare the two versions; save again to keep yours over theirs, or take the saved one.</p>
       </Alert>
       {rows.length > 0 ? (
-        <div className="relative overflow-x-auto">
-          <table className="w-full text-sm">
-            <caption className="sr-only">Your values and the saved values</caption>
-            <thead className="text-left text-xs font-semibold text-ink-600 uppercase">
-              <tr>
-                <th scope="col" className="py-1 pr-2">
-                  Field
-                </th>
-                <th scope="col" className="py-1 pr-2">
-                  Yours
-                </th>
-                <th scope="col" className="py-1">
-                  Saved now
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {rows.map((r) => (
-                <tr key={r.label} className="border-t border-caution-300/60 align-top">
-                  <th scope="row" className="py-1 pr-2 text-left font-medium">
-                    {r.label}
-                  </th>
-                  <td className="py-1 pr-2 break-words">{r.mine}</td>
-                  <td className="py-1 break-words">{r.theirs}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <CompareTable>
+          {rows.map((r) => (
+            <tr key={r.label} className="border-t border-caution-300/60 align-top">
+              <th scope="row" className="py-1 pr-2 text-left font-medium">
+                {r.label}
+              </th>
+              <td className="py-1 pr-2 break-words">{r.mine}</td>
+              <td className="py-1 break-words">{r.theirs}</td>
+            </tr>
+          ))}
+        </CompareTable>
       ) : (
         <p className="text-sm">The saved version has the same values as yours in this form.</p>
       )}

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { Alert } from '@/components/ui/alert';
+import { CompareTable } from '@/components/ui/compare-table';
 import { Button } from '@/components/ui/button';
 
 /** One field where the user's value and the saved value differ. */
@@ -45,60 +46,42 @@ export function StaleChoice({
         </p>
       </Alert>
       {rows.length > 0 && (
-        <div className="relative overflow-x-auto">
-          <table className="w-full text-sm">
-            <caption className="sr-only">Your values and the saved values</caption>
-            <thead className="text-left text-xs font-semibold text-ink-600 uppercase">
-              <tr>
-                <th scope="col" className="py-1 pr-2">
-                  Field
-                </th>
-                <th scope="col" className="py-1 pr-2">
-                  Yours
-                </th>
-                <th scope="col" className="py-1">
-                  Saved now
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {rows.map((r) => (
-                <tr key={r.key} className="border-t border-caution-300/60 align-top">
-                  <th scope="row" className="py-2 pr-2 text-left font-medium">
-                    {r.label}
-                    {r.bothChanged && <span className="block text-xs font-normal text-caution-800">both of you changed it</span>}
-                  </th>
-                  <td className="py-2 pr-2">
-                    <label className="flex min-h-11 cursor-pointer items-start gap-2">
-                      <input
-                        type="radio"
-                        name={`stale-${r.key}`}
-                        className="mt-0.5 size-5 accent-brand-700"
-                        checked={choice[r.key] === 'mine'}
-                        onChange={() => setChoice({ ...choice, [r.key]: 'mine' })}
-                        aria-label={`${r.label}: keep yours, ${r.mine}`}
-                      />
-                      <span className="break-words">{r.mine}</span>
-                    </label>
-                  </td>
-                  <td className="py-2">
-                    <label className="flex min-h-11 cursor-pointer items-start gap-2">
-                      <input
-                        type="radio"
-                        name={`stale-${r.key}`}
-                        className="mt-0.5 size-5 accent-brand-700"
-                        checked={choice[r.key] === 'theirs'}
-                        onChange={() => setChoice({ ...choice, [r.key]: 'theirs' })}
-                        aria-label={`${r.label}: take the saved value, ${r.theirs}`}
-                      />
-                      <span className="break-words">{r.theirs}</span>
-                    </label>
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <CompareTable>
+          {rows.map((r) => (
+            <tr key={r.key} className="border-t border-caution-300/60 align-top">
+              <th scope="row" className="py-2 pr-2 text-left font-medium">
+                {r.label}
+                {r.bothChanged && <span className="block text-xs font-normal text-caution-800">both of you changed it</span>}
+              </th>
+              <td className="py-2 pr-2">
+                <label className="flex min-h-11 cursor-pointer items-start gap-2">
+                  <input
+                    type="radio"
+                    name={`stale-${r.key}`}
+                    className="mt-0.5 size-5 accent-brand-700"
+                    checked={choice[r.key] === 'mine'}
+                    onChange={() => setChoice({ ...choice, [r.key]: 'mine' })}
+                    aria-label={`${r.label}: keep yours, ${r.mine}`}
+                  />
+                  <span className="break-words">{r.mine}</span>
+                </label>
+              </td>
+              <td className="py-2">
+                <label className="flex min-h-11 cursor-pointer items-start gap-2">
+                  <input
+                    type="radio"
+                    name={`stale-${r.key}`}
+                    className="mt-0.5 size-5 accent-brand-700"
+                    checked={choice[r.key] === 'theirs'}
+                    onChange={() => setChoice({ ...choice, [r.key]: 'theirs' })}
+                    aria-label={`${r.label}: take the saved value, ${r.theirs}`}
+                  />
+                  <span className="break-words">{r.theirs}</span>
+                </label>
+              </td>
+            </tr>
+          ))}
+        </CompareTable>
       )}
       {theirOnly.length > 0 && (
         <div className="text-sm">
